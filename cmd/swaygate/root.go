@@ -1,0 +1,32 @@
+package main
+
+import (
+	"fmt"
+	"io"
+
+	"github.com/spf13/cobra"
+)
+
+// version is set at build time with -ldflags "-X main.version=...".
+var version = "0.1.0-dev"
+
+func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
+	root := &cobra.Command{
+		Use:           "swaygate",
+		Short:         "Stability and moment amplification checks of steel columns in IFC models",
+		SilenceUsage:  true,
+		SilenceErrors: true,
+	}
+	root.SetOut(stdout)
+	root.SetErr(stderr)
+	root.AddCommand(&cobra.Command{
+		Use:   "version",
+		Short: "Print the version",
+		Args:  cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, _ []string) error {
+			fmt.Fprintln(cmd.OutOrStdout(), "swaygate", version)
+			return nil
+		},
+	})
+	return root
+}
