@@ -28,5 +28,6 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 			return nil
 		},
 	})
+	root.AddCommand(newScanCmd())
 	return root
 }
