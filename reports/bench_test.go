@@ -109,3 +109,25 @@ func BenchmarkWriteJSONTrace(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkWriters writes 10,000 members × 2 combinations with no trace in
+// each of the other formats.
+func BenchmarkWriters(b *testing.B) {
+	r := benchReport(10_000, 2)
+	for _, name := range []string{"junit", "csv", "html", "text"} {
+		write := writers[name]
+		b.Run(name, func(b *testing.B) {
+			var cw countWriter
+			if err := write(&cw, r, fxRun); err != nil {
+				b.Fatal(err)
+			}
+			b.SetBytes(cw.n)
+			b.ReportAllocs()
+			for b.Loop() {
+				if err := write(io.Discard, r, fxRun); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

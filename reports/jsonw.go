@@ -129,6 +129,12 @@ func appendJSONFloat(b []byte, f float64) []byte {
 		return append(b, '0') // also for -0
 	}
 	abs := math.Abs(f)
+	if abs < 1e15 && f == math.Trunc(f) {
+		// Integral values (lengths, moduli, counts, deltas of 1) are common;
+		// AppendInt is several times faster than shortest-float formatting
+		// and gives the same digits.
+		return strconv.AppendInt(b, int64(f), 10)
+	}
 	format := byte('f')
 	if abs < 1e-6 || abs >= 1e21 {
 		format = 'e'

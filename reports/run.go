@@ -30,7 +30,7 @@ type Run struct {
 	ToolVersion string
 	Project     string // written as "project" when not empty
 	Model       ModelInfo
-	Gate        Gate
+	Gate        Gate // from NewGate; an empty policy is written as "fail"
 	// Units chooses the display units of the text and HTML reports: "si"
 	// (default when empty) or "us". JSON and CSV are always SI.
 	Units string
