@@ -31,6 +31,11 @@ type Properties struct {
 	// axis from the shape's x-axis; 0 for doubly symmetric shapes.
 	Angle float64
 
+	// Cx, Cy locate the centroid in the shape's own coordinates, mm (the
+	// parametric shapes of this package put their origin at the centre of the
+	// bounding box, as IFC does).
+	Cx, Cy float64
+
 	// Source: "computed" from dimensions, or "model" (properties given in the
 	// model, e.g. Pset_ProfileMechanical).
 	Source string
