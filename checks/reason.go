@@ -61,6 +61,9 @@ const (
 	CodeTotalMomentAmplified    = "total-moment-amplified"
 	CodeUnknownGlobalID         = "unknown-global-id"
 	CodeNotSteel                = "not-steel"
+	// CodeStoreyDataIgnored: a storey shear/drift row could not be used
+	// (run warning).
+	CodeStoreyDataIgnored = "storey-data-ignored"
 )
 
 // codeVerdict maps each verdict-setting code to the verdict it sets. Codes not

@@ -25,6 +25,12 @@ type Options struct {
 	Modulus float64
 	// Yield is fy where the model gives none (MPa; 0 = none).
 	Yield float64
+
+	// TraceOnDemand: Run leaves Element.Trace nil and a writer gets each
+	// element's steps from Report.AppendTrace, one element at a time. Use it
+	// for large models: a full trace holds about 170 steps of some 450 bytes
+	// per member with 10 combinations.
+	TraceOnDemand bool
 }
 
 // RestraintDefault is a user-chosen default for one axis.
@@ -62,6 +68,8 @@ type Report struct {
 	// Frame holds the elastic buckling analysis of the analytical frame when
 	// the frame method ran; nil otherwise.
 	Frame *FrameResult
+
+	run *run // the run's state, for AppendTrace
 }
 
 // Summary counts members by verdict.
