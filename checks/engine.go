@@ -787,11 +787,18 @@ func (r *run) compactReasons() []Reason {
 	return out[:len(out):len(out)]
 }
 
-const arenaChunk = 4096
+// Arena chunks start small (a small model allocates little) and double up to
+// arenaChunk.
+const (
+	arenaFirst = 64
+	arenaChunk = 4096
+)
+
+func nextChunk(prev, n int) int { return max(n, min(arenaChunk, max(arenaFirst, 2*prev))) }
 
 func (r *run) allocReasons(n int) []Reason {
 	if cap(r.reasonArena)-len(r.reasonArena) < n {
-		r.reasonArena = make([]Reason, 0, max(arenaChunk, n))
+		r.reasonArena = make([]Reason, 0, nextChunk(cap(r.reasonArena), n))
 	}
 	l := len(r.reasonArena)
 	r.reasonArena = r.reasonArena[:l+n]
@@ -805,7 +812,7 @@ func (r *run) keepSteps(steps []Step) []Step {
 		return nil
 	}
 	if cap(r.stepArena)-len(r.stepArena) < n {
-		r.stepArena = make([]Step, 0, max(arenaChunk, n))
+		r.stepArena = make([]Step, 0, nextChunk(cap(r.stepArena), n))
 	}
 	l := len(r.stepArena)
 	r.stepArena = append(r.stepArena, steps...)
