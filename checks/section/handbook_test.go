@@ -25,7 +25,6 @@ type handbookI struct {
 	a, ix, iy, zx, zy float64
 	sx, sy, j, iw     float64
 	tol               float64 // for A, I, Z and S when not tolProp
-	tolJ, tolIw       float64
 }
 
 // Tolerances. A, I, Z and S: 1 %. J: every handbook adds a bulb term at
