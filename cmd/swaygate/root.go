@@ -29,5 +29,6 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 		},
 	})
 	root.AddCommand(newScanCmd())
+	root.AddCommand(newGenerateCmd())
 	return root
 }
