@@ -188,14 +188,23 @@ func (g region) transform(t similarity) region {
 func (g region) bounds() (xmin, xmax, ymin, ymax float64) {
 	xmin, ymin = math.Inf(1), math.Inf(1)
 	xmax, ymax = math.Inf(-1), math.Inf(-1)
-	add := func(x, y float64) {
-		xmin, xmax = math.Min(xmin, x), math.Max(xmax, x)
-		ymin, ymax = math.Min(ymin, y), math.Max(ymax, y)
+	add := func(x, y float64) { // coordinates are finite: no NaN care needed
+		if x < xmin {
+			xmin = x
+		}
+		if x > xmax {
+			xmax = x
+		}
+		if y < ymin {
+			ymin = y
+		}
+		if y > ymax {
+			ymax = y
+		}
 	}
 	for _, l := range g.loops {
 		for _, s := range l.segs {
-			add(s.x0, s.y0)
-			add(s.x1, s.y1)
+			add(s.x0, s.y0) // a loop is closed: each end point starts the next piece
 			if !s.arc {
 				continue
 			}

@@ -140,10 +140,18 @@ func (g *region) orient() (moments, int) {
 
 // above returns the area of the region above the line y = c and its first
 // moment about that line, ∫(y − c) dA over that part. orient must have run.
-func (g region) above(c float64) (area, q float64) {
+// With turn set it works on the region turned by −π/2, (x, y) → (y, −x),
+// without copying it: "above" is then x ≤ −c.
+func (g region) above(c float64, turn bool) (area, q float64) {
 	for _, l := range g.loops {
 		var a, m float64
 		for _, s := range l.segs {
+			if turn {
+				s.x0, s.y0, s.x1, s.y1 = s.y0, -s.x0, s.y1, -s.x1
+				s.cx, s.cy = s.cy, -s.cx
+				s.a0 -= math.Pi / 2
+				s.a1 -= math.Pi / 2
+			}
 			if s.arc {
 				da, dm := arcAbove(s, c)
 				a += da
@@ -199,10 +207,18 @@ func arcAbove(s seg, c float64) (float64, float64) {
 		if t1 <= t0 {
 			return
 		}
-		s0, c0 := math.Sincos(t0)
-		s1, c1 := math.Sincos(t1)
-		x0, y0 := s.cx+s.r*c0, s.cy+s.r*s0
-		x1, y1 := s.cx+s.r*c1, s.cy+s.r*s1
+		var x0, y0, x1, y1 float64
+		if t0 == lo && t1 == hi { // the whole arc: its end points are known
+			x0, y0, x1, y1 = s.x0, s.y0, s.x1, s.y1
+			if dir < 0 {
+				x0, y0, x1, y1 = x1, y1, x0, y0
+			}
+		} else {
+			s0, c0 := math.Sincos(t0)
+			s1, c1 := math.Sincos(t1)
+			x0, y0 = s.cx+s.r*c0, s.cy+s.r*s0
+			x1, y1 = s.cx+s.r*c1, s.cy+s.r*s1
+		}
 		da, dm := chord(x0, y0, x1, y1, c)
 		sm := segmentMoments(s.cx, s.cy, s.r, t0, t1)
 		a += da + sm.a

@@ -7,6 +7,28 @@
 //
 // Axis convention: for I, channel, tee and rectangular shapes, major is
 // bending about the shape's x-axis (flanges parallel to x, depth along y).
+//
+// # Shapes
+//
+// Each shape is a plain struct of dimensions in mm, usable as a literal
+// (no constructor); Properties validates the dimensions and returns a
+// *DimensionError naming the field at fault. The parametric shapes put
+// their origin at the centre of the bounding box, as IFC does: ISection,
+// AsymmetricI, RHS, CHS, Rect, Circle, Tee, Angle, Channel, LippedChannel
+// and Zed. Polygon is an arbitrary outline with holes; Transformed moves,
+// turns, mirrors or scales another shape.
+//
+// # Method
+//
+// Area, centroid and second moments are integrated exactly over the
+// outline by Green's theorem, with root fillets and rounded corners kept as
+// true circular arcs. The principal axes follow from the second moments;
+// Angle is the major axis's inclination (0 when it is x, π/2 when it is y).
+// Z is I over the farthest fibre from the principal axis. S is ∫|v − c| dA
+// about the equal-area axis parallel to the principal axis, exact for every
+// shape including fillets (the axis is found to rounding by iteration when
+// the section is not symmetric about it). J and Iw come from shape
+// formulas, documented on each shape; they are NaN for a Polygon.
 package section
 
 // Properties are the section properties a check needs. Unknown values are

@@ -54,10 +54,15 @@ func solve(g region) (Properties, error) {
 		return p, solveError("the outline is empty")
 	}
 	// Integrate about the centre of the bounding box: moments about a far
-	// origin would lose digits in the parallel-axis shift.
+	// origin would lose digits in the parallel-axis shift. (The shapes of
+	// this package are centred already: no copy then.)
 	xmin, xmax, ymin, ymax := g.bounds()
 	ox, oy := (xmin+xmax)/2, (ymin+ymax)/2
-	g = g.transform(similarity{scale: 1, tx: -ox, ty: -oy})
+	if math.Abs(ox)+math.Abs(oy) > 1e-9*(xmax-xmin+ymax-ymin) {
+		g = g.transform(similarity{scale: 1, tx: -ox, ty: -oy})
+	} else {
+		ox, oy = 0, 0
+	}
 	m, bad := g.orient()
 	if bad >= 0 {
 		if g.loops[bad].hole {
@@ -96,26 +101,36 @@ func solve(g region) (Properties, error) {
 	p.RMajor, p.RMinor = math.Sqrt(p.IMajor/p.A), math.Sqrt(p.IMinor/p.A)
 	p.Angle = theta
 
-	// Principal frame: centroid at the origin, major axis along x.
-	pr := g.transform(similarity{scale: 1, tx: -xc, ty: -yc}).
-		transform(similarity{scale: 1, rot: -theta})
+	// Principal frame: centroid at the origin, major axis along x, that is
+	// p' = R(−θ)·(p − c). The minor-axis plastic modulus works on it turned
+	// a further −π/2, so that its y is minus the principal x.
+	pr := g
+	if theta != 0 || xc != 0 || yc != 0 {
+		pr = g.transform(toFrame(-theta, xc, yc))
+	}
 	bx0, bx1, by0, by1 := pr.bounds()
 	p.ZMajor = p.IMajor / math.Max(-by0, by1)
 	p.ZMinor = p.IMinor / math.Max(-bx0, bx1)
-	p.SMajor = plastic(pr, p.A, by0, by1)
-	qr := pr.transform(similarity{scale: 1, rot: -math.Pi / 2}) // new y = −old x
-	p.SMinor = plastic(qr, p.A, -bx1, -bx0)
+	p.SMajor = plastic(pr, false, p.A, by0, by1)
+	p.SMinor = plastic(pr, true, p.A, -bx1, -bx0)
 	return p, nil
+}
+
+// toFrame is the similarity p' = R(rot)·(p − (xc, yc)).
+func toFrame(rot, xc, yc float64) similarity {
+	s, c := math.Sincos(rot)
+	return similarity{rot: rot, scale: 1, tx: -(c*xc - s*yc), ty: -(s*xc + c*yc)}
 }
 
 // plastic returns the plastic modulus of a region whose centroid is at the
 // origin for bending about a horizontal axis: ∫|y − c| dA with c the
 // equal-area line, found by the Illinois (modified regula falsi) method on
-// the area above c. ymin and ymax bound the region.
-func plastic(g region, a, ymin, ymax float64) float64 {
+// the area above c. ymin and ymax bound the region. With turn the region is
+// taken turned by −π/2 (see region.above), for the other principal axis.
+func plastic(g region, turn bool, a, ymin, ymax float64) float64 {
 	half := a / 2
 	f := func(c float64) (float64, float64) {
-		ar, q := g.above(c)
+		ar, q := g.above(c, turn)
 		return ar - half, q
 	}
 	tolA := 1e-13 * a
