@@ -81,6 +81,9 @@ func (s Tee) build() (def, error) {
 	if ck.err == nil && !(yj > -h) {
 		ck.failf("Tf", s.Tf, "leaves no web below the flange")
 	}
+	if ck.err == nil && !(xj < s.B/2) {
+		ck.failf("WebSlope", s.WebSlope, "makes the web meet the flange beyond its tips")
+	}
 	if ck.err != nil {
 		return def{}, ck.err
 	}

@@ -94,6 +94,17 @@ func solve(g region) (Properties, error) {
 	if theta <= -math.Pi/2 {
 		theta += math.Pi
 	}
+	if theta == 0 {
+		theta = 0 // not −0
+	}
+	// Snap a centroid that is zero up to rounding (symmetric shapes).
+	size := xmax - xmin + ymax - ymin
+	if math.Abs(xc+ox) <= 1e-12*size {
+		xc = -ox
+	}
+	if math.Abs(yc+oy) <= 1e-12*size {
+		yc = -oy
+	}
 
 	p.A = m.a
 	p.Cx, p.Cy = xc+ox, yc+oy
