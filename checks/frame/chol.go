@@ -1,0 +1,477 @@
+package frame
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+)
+
+// Sparse Cholesky factorisation K = L·Lᵀ by the multifrontal method
+// (Duff & Reid 1983; Liu, "The multifrontal method for sparse matrix
+// solution", SIAM Review 1992). The symbolic phase works on the graph of
+// points (vertices of several degrees of freedom each), so every vertex
+// is a dense block and fundamental supernodes are runs of vertices. Each
+// supernode's frontal matrix is dense and is factored with LAPACK/BLAS
+// kernels (potrf, trsm, syrk), which carry nearly all the work.
+
+// csr is a symmetric matrix stored in full (both triangles) compressed
+// rows, columns sorted within each row.
+type csr struct {
+	n      int
+	rowPtr []int
+	col    []int32
+	val    []float64
+}
+
+// mulVec sets y = A·x.
+func (a *csr) mulVec(y, x []float64) {
+	for i := 0; i < a.n; i++ {
+		var s float64
+		cols := a.col[a.rowPtr[i]:a.rowPtr[i+1]]
+		vals := a.val[a.rowPtr[i]:a.rowPtr[i+1]]
+		for k, j := range cols {
+			s += vals[k] * x[j]
+		}
+		y[i] = s
+	}
+}
+
+// symbolic is the structure of the factor.
+type symbolic struct {
+	perm  []int32 // perm[i]: the input graph's vertex eliminated i-th
+	first []int32 // first degree of freedom of each vertex in elimination order; len nv+1
+
+	snStart  []int32 // supernode s holds vertices snStart[s] .. snStart[s+1]-1
+	rowsOff  []int   // rows[rowsOff[s]:rowsOff[s+1]]: degrees of freedom below supernode s's columns
+	rows     []int32
+	snParent []int32 // -1 at a root
+	nChild   []int32
+	lOff     []int // L block of s: l[lOff[s]:lOff[s+1]], (k+r)×k row-major
+
+	g        *graph    // the graph in elimination order
+	snK, snR []int32   // columns and rows below them, per supernode
+	snRowsV  [][]int32 // vertices below each supernode, until layout
+	stackMax int       // largest total size of pending update matrices
+
+	nnz      int     // stored entries of L (including the upper parts of diagonal blocks)
+	flops    float64 // multiply–adds of the factorisation (estimate)
+	maxFront int
+}
+
+// analyse computes the symbolic factorisation of a graph in the elimination
+// order perm: elimination tree (Liu's algorithm), its postorder (same fill),
+// the row structures, and fundamental supernodes.
+func analyse(g0 *graph, perm0 []int32) *symbolic {
+	n := g0.n()
+	g := g0.permute(perm0)
+
+	// Elimination tree with path compression.
+	parent := make([]int32, n)
+	anc := make([]int32, n)
+	for j := int32(0); j < int32(n); j++ {
+		parent[j], anc[j] = -1, -1
+		for _, i := range g.neighbours(j) {
+			if i >= j {
+				continue
+			}
+			r := i
+			for anc[r] != -1 && anc[r] != j {
+				t := anc[r]
+				anc[r] = j
+				r = t
+			}
+			if anc[r] == -1 {
+				anc[r] = j
+				parent[r] = j
+			}
+		}
+	}
+
+	// Postorder, children in increasing order.
+	head := make([]int32, n)
+	next := make([]int32, n)
+	for i := range head {
+		head[i] = -1
+	}
+	for v := int32(n) - 1; v >= 0; v-- {
+		if p := parent[v]; p >= 0 {
+			next[v] = head[p]
+			head[p] = v
+		}
+	}
+	post := make([]int32, 0, n)
+	stack := make([]int32, 0, 64)
+	for root := int32(0); root < int32(n); root++ {
+		if parent[root] != -1 {
+			continue
+		}
+		stack = append(stack[:0], root)
+		for len(stack) > 0 {
+			v := stack[len(stack)-1]
+			if c := head[v]; c != -1 {
+				head[v] = next[c] // visit child c next time
+				stack = append(stack, c)
+				continue
+			}
+			stack = stack[:len(stack)-1]
+			post = append(post, v)
+		}
+	}
+	perm := make([]int32, n)
+	for i, v := range post {
+		perm[i] = perm0[v]
+	}
+	g = g0.permute(perm)
+
+	// Row structures: struct(j) = adj⁺(j) ∪ ⋃ struct(children) \ {j}.
+	structs := make([][]int32, n)
+	children := make([][]int32, n)
+	mark := make([]int32, n)
+	for i := range mark {
+		mark[i] = -1
+	}
+	nChildV := make([]int32, n)
+	for j := int32(0); j < int32(n); j++ {
+		var s []int32
+		mark[j] = j
+		for _, i := range g.neighbours(j) {
+			if i > j && mark[i] != j {
+				mark[i] = j
+				s = append(s, i)
+			}
+		}
+		for _, c := range children[j] {
+			for _, i := range structs[c] {
+				if mark[i] != j {
+					mark[i] = j
+					s = append(s, i)
+				}
+			}
+		}
+		children[j] = nil
+		sortInt32(s)
+		structs[j] = s
+		parent[j] = -1
+		if len(s) > 0 {
+			parent[j] = s[0]
+			children[s[0]] = append(children[s[0]], j)
+			nChildV[s[0]]++
+		}
+	}
+
+	sy := &symbolic{perm: perm, first: make([]int32, n+1), g: g}
+	for v := 0; v < n; v++ {
+		sy.first[v+1] = sy.first[v] + g.w[v]
+	}
+
+	// Fundamental supernodes.
+	snOf := make([]int32, n)
+	for j := 0; j < n; j++ {
+		if j > 0 && parent[j-1] == int32(j) && nChildV[j] == 1 && len(structs[j-1]) == len(structs[j])+1 {
+			snOf[j] = snOf[j-1]
+			continue
+		}
+		snOf[j] = int32(len(sy.snStart))
+		sy.snStart = append(sy.snStart, int32(j))
+	}
+	ns := len(sy.snStart)
+	sy.snStart = append(sy.snStart, int32(n))
+	sy.snParent = make([]int32, ns)
+	sy.nChild = make([]int32, ns)
+	sy.snRowsV = make([][]int32, ns)
+	sy.snK = make([]int32, ns)
+	sy.snR = make([]int32, ns)
+	for s := 0; s < ns; s++ {
+		last := sy.snStart[s+1] - 1
+		k := int(sy.first[last+1] - sy.first[sy.snStart[s]])
+		r := 0
+		for _, v := range structs[last] {
+			r += int(g.w[v])
+		}
+		sy.snRowsV[s] = structs[last]
+		sy.snK[s], sy.snR[s] = int32(k), int32(r)
+		sy.snParent[s] = -1
+		if p := parent[last]; p >= 0 {
+			sy.snParent[s] = snOf[p]
+			sy.nChild[snOf[p]]++
+		}
+		fk, fr := float64(k), float64(r)
+		sy.flops += fk*fk*fk/3 + fk*fk*fr + fk*fr*fr/2
+		sy.nnz += (k + r) * k
+		if k+r > sy.maxFront {
+			sy.maxFront = k + r
+		}
+	}
+	return sy
+}
+
+// layout lays out the factor of the analysed structure: the row lists of
+// the supernodes, the offsets of their blocks of L, and the size of the
+// update-matrix stack of the factorisation.
+func (sy *symbolic) layout() {
+	ns := len(sy.snK)
+	sy.rowsOff = make([]int, ns+1)
+	sy.lOff = make([]int, ns+1)
+	total := 0
+	for s := 0; s < ns; s++ {
+		total += int(sy.snR[s])
+	}
+	sy.rows = make([]int32, 0, total)
+	var sizes []int // the stack of update-matrix sizes
+	depth := 0
+	for s := 0; s < ns; s++ {
+		for _, v := range sy.snRowsV[s] {
+			for d := sy.first[v]; d < sy.first[v+1]; d++ {
+				sy.rows = append(sy.rows, d)
+			}
+		}
+		sy.rowsOff[s+1] = len(sy.rows)
+		k, r := int(sy.snK[s]), int(sy.snR[s])
+		sy.lOff[s+1] = sy.lOff[s] + (k+r)*k
+		for q := int32(0); q < sy.nChild[s]; q++ {
+			depth -= sizes[len(sizes)-1]
+			sizes = sizes[:len(sizes)-1]
+		}
+		if r > 0 && sy.snParent[s] >= 0 {
+			sizes = append(sizes, r*r)
+			depth += r * r
+			sy.stackMax = max(sy.stackMax, depth)
+		}
+	}
+	sy.snRowsV = nil
+}
+
+// factor is a numeric Cholesky factor.
+type factor struct {
+	sy *symbolic
+	l  []float64
+}
+
+// pivotError reports the first degree of freedom (in elimination order)
+// whose pivot is not positive enough.
+type pivotError struct {
+	dof   int
+	ratio float64
+}
+
+// pivotTol is the smallest accepted ratio of a pivot to the degree of
+// freedom's own stiffness. A mechanism leaves a pivot of rounding size
+// (about 1e-16 relative); genuine flexible structures stay many orders of
+// magnitude above 1e-10.
+const pivotTol = 1e-10
+
+// factorize computes the numeric factor of a (in elimination order).
+func (sy *symbolic) factorize(a *csr) (*factor, *pivotError) {
+	ns := len(sy.snStart) - 1
+	f := &factor{sy: sy, l: make([]float64, sy.nnz)}
+	rel := make([]int32, a.n)
+	work := make([]float64, sy.maxFront*sy.maxFront)
+	var save []float64
+	stack := make([]float64, 0, sy.stackMax) // update matrices of processed supernodes
+	var stackS []int32                       // their supernodes
+	var stackOff []int                       // and offsets in stack
+	for s := 0; s < ns; s++ {
+		c0 := int(sy.first[sy.snStart[s]])
+		c1 := int(sy.first[sy.snStart[s+1]])
+		k := c1 - c0
+		rows := sy.rows[sy.rowsOff[s]:sy.rowsOff[s+1]]
+		r := len(rows)
+		fs := k + r
+		F := work[:fs*fs]
+		for i := range F {
+			F[i] = 0
+		}
+		for i := 0; i < k; i++ {
+			rel[c0+i] = int32(i)
+		}
+		for i, d := range rows {
+			rel[d] = int32(k + i)
+		}
+
+		// Original entries of the supernode's columns (lower part).
+		for c := c0; c < c1; c++ {
+			cc := c - c0
+			cols := a.col[a.rowPtr[c]:a.rowPtr[c+1]]
+			vals := a.val[a.rowPtr[c]:a.rowPtr[c+1]]
+			for t, j := range cols {
+				if int(j) >= c {
+					F[int(rel[j])*fs+cc] += vals[t]
+				}
+			}
+		}
+
+		// Extend-add the children's update matrices (on top of the stack).
+		for q := int32(0); q < sy.nChild[s]; q++ {
+			top := len(stackS) - 1
+			ch := stackS[top]
+			off := stackOff[top]
+			crow := sy.rows[sy.rowsOff[ch]:sy.rowsOff[ch+1]]
+			rc := len(crow)
+			u := stack[off : off+rc*rc]
+			for x := 0; x < rc; x++ {
+				fx := int(rel[crow[x]]) * fs
+				ux := u[x*rc : x*rc+x+1]
+				for y, v := range ux {
+					F[fx+int(rel[crow[y]])] += v
+				}
+			}
+			stack = stack[:off]
+			stackS = stackS[:top]
+			stackOff = stackOff[:top]
+		}
+
+		// Dense partial factorisation of the front.
+		if cap(save) < k*k {
+			save = make([]float64, k*k)
+		}
+		save = save[:k*k]
+		for i := 0; i < k; i++ {
+			copy(save[i*k:i*k+i+1], F[i*fs:i*fs+i+1])
+		}
+		f11 := blas64.Symmetric{Uplo: blas.Lower, N: k, Stride: fs, Data: F}
+		_, ok := lapack64.Potrf(f11)
+		if !ok {
+			i, ratio := unblockedPivot(save, k, a, c0)
+			return nil, &pivotError{dof: c0 + i, ratio: ratio}
+		}
+		for i := 0; i < k; i++ {
+			p := F[i*fs+i]
+			if d := diagOf(a, c0+i); p*p < pivotTol*d {
+				return nil, &pivotError{dof: c0 + i, ratio: p * p / d}
+			}
+		}
+		if r > 0 {
+			l11 := blas64.Triangular{Uplo: blas.Lower, Diag: blas.NonUnit, N: k, Stride: fs, Data: F}
+			f21 := blas64.General{Rows: r, Cols: k, Stride: fs, Data: F[k*fs:]}
+			blas64.Trsm(blas.Right, blas.Trans, 1, l11, f21)
+			syrkLower(f21, F[k*fs+k:], fs)
+		}
+		// Keep L's columns; push the update matrix.
+		ls := f.l[sy.lOff[s]:sy.lOff[s+1]]
+		for i := 0; i < fs; i++ {
+			copy(ls[i*k:(i+1)*k], F[i*fs:i*fs+k])
+		}
+		if r > 0 && sy.snParent[s] >= 0 {
+			off := len(stack)
+			stack = stack[:off+r*r] // within stackMax
+			u := stack[off:]
+			for i := 0; i < r; i++ {
+				copy(u[i*r:i*r+i+1], F[(k+i)*fs+k:(k+i)*fs+k+i+1])
+			}
+			stackS = append(stackS, int32(s))
+			stackOff = append(stackOff, off)
+		}
+	}
+	return f, nil
+}
+
+// syrkLower sets the lower triangle of C (a.Rows square, row-major with
+// stride ldc) to C − A·Aᵀ. It works in column panels so that nearly all
+// the work is a matrix product: gonum's Dgemm is blocked and parallel,
+// its Dsyrk is neither, and was four times slower here.
+func syrkLower(a blas64.General, c []float64, ldc int) {
+	const nb = 96
+	r := a.Rows
+	for j := 0; j < r; j += nb {
+		w := min(nb, r-j)
+		// C[j:r, j:j+w] −= A[j:r, :]·A[j:j+w, :]ᵀ (the strictly upper part of
+		// the diagonal panel is written too, and never read).
+		aj := blas64.General{Rows: r - j, Cols: a.Cols, Stride: a.Stride, Data: a.Data[j*a.Stride:]}
+		bj := blas64.General{Rows: w, Cols: a.Cols, Stride: a.Stride, Data: a.Data[j*a.Stride:]}
+		cj := blas64.General{Rows: r - j, Cols: w, Stride: ldc, Data: c[j*ldc+j:]}
+		blas64.Gemm(blas.NoTrans, blas.Trans, -1, aj, bj, 1, cj)
+	}
+}
+
+// diagOf returns a[i][i].
+func diagOf(a *csr, i int) float64 {
+	cols := a.col[a.rowPtr[i]:a.rowPtr[i+1]]
+	lo, hi := 0, len(cols)
+	for lo < hi {
+		m := (lo + hi) / 2
+		if int(cols[m]) < i {
+			lo = m + 1
+		} else {
+			hi = m
+		}
+	}
+	if lo < len(cols) && int(cols[lo]) == i {
+		return a.val[a.rowPtr[i]+lo]
+	}
+	return 0
+}
+
+// unblockedPivot factors the saved k×k front block column by column to find
+// the first failing pivot, which potrf does not report.
+func unblockedPivot(m []float64, k int, a *csr, c0 int) (int, float64) {
+	for j := 0; j < k; j++ {
+		d := m[j*k+j]
+		for t := 0; t < j; t++ {
+			d -= m[j*k+t] * m[j*k+t]
+		}
+		orig := diagOf(a, c0+j)
+		if orig <= 0 || d < pivotTol*orig {
+			ratio := 0.0
+			if orig > 0 {
+				ratio = d / orig
+			}
+			return j, ratio
+		}
+		p := math.Sqrt(d)
+		m[j*k+j] = p
+		for i := j + 1; i < k; i++ {
+			v := m[i*k+j]
+			for t := 0; t < j; t++ {
+				v -= m[i*k+t] * m[j*k+t]
+			}
+			m[i*k+j] = v / p
+		}
+	}
+	return k - 1, 0
+}
+
+// solveL overwrites x with L⁻¹·x; tmp must hold maxFront values.
+func (f *factor) solveL(x, tmp []float64) {
+	sy := f.sy
+	ns := len(sy.snStart) - 1
+	for s := 0; s < ns; s++ {
+		c0 := int(sy.first[sy.snStart[s]])
+		k := int(sy.first[sy.snStart[s+1]]) - c0
+		rows := sy.rows[sy.rowsOff[s]:sy.rowsOff[s+1]]
+		r := len(rows)
+		ls := f.l[sy.lOff[s]:sy.lOff[s+1]]
+		xs := blas64.Vector{N: k, Inc: 1, Data: x[c0 : c0+k]}
+		blas64.Trsv(blas.NoTrans, blas64.Triangular{Uplo: blas.Lower, Diag: blas.NonUnit, N: k, Stride: k, Data: ls}, xs)
+		if r == 0 {
+			continue
+		}
+		t := blas64.Vector{N: r, Inc: 1, Data: tmp[:r]}
+		blas64.Gemv(blas.NoTrans, 1, blas64.General{Rows: r, Cols: k, Stride: k, Data: ls[k*k:]}, xs, 0, t)
+		for i, d := range rows {
+			x[d] -= tmp[i]
+		}
+	}
+}
+
+// solveLT overwrites x with L⁻ᵀ·x; tmp must hold maxFront values.
+func (f *factor) solveLT(x, tmp []float64) {
+	sy := f.sy
+	for s := len(sy.snStart) - 2; s >= 0; s-- {
+		c0 := int(sy.first[sy.snStart[s]])
+		k := int(sy.first[sy.snStart[s+1]]) - c0
+		rows := sy.rows[sy.rowsOff[s]:sy.rowsOff[s+1]]
+		r := len(rows)
+		ls := f.l[sy.lOff[s]:sy.lOff[s+1]]
+		xs := blas64.Vector{N: k, Inc: 1, Data: x[c0 : c0+k]}
+		if r > 0 {
+			for i, d := range rows {
+				tmp[i] = x[d]
+			}
+			t := blas64.Vector{N: r, Inc: 1, Data: tmp[:r]}
+			blas64.Gemv(blas.Trans, -1, blas64.General{Rows: r, Cols: k, Stride: k, Data: ls[k*k:]}, t, 1, xs)
+		}
+		blas64.Trsv(blas.Trans, blas64.Triangular{Uplo: blas.Lower, Diag: blas.NonUnit, N: k, Stride: k, Data: ls}, xs)
+	}
+}
