@@ -28,13 +28,15 @@ type handbookI struct {
 	tol               float64 // for A, I, Z, S and r when not tolProp
 }
 
-// Tolerances. A, I, Z and S: 1 %. J: every handbook adds a bulb term at
-// the web–flange junctions and each uses its own approximation of it; the
-// El Darwish–Johnston formula used here falls within 3 % of all three
-// families of tables (largest spread −2.9 % on HE 260 A, whose r/tf = 1.9 is
-// beyond the range the formula was fitted for). Iw: the European and
-// Australian tables agree with the flanges-only If·h²/4 within 1 %; the AISC
-// Cw is Iy·h0²/4 with the whole section's Iy and differs by up to 2 %.
+// Tolerances. A, I, Z, S and r: 1 %. J: 3 %: every handbook's J includes a
+// bulb term for the fillets at the web–flange junctions, and each family of
+// tables uses its own approximation of it; the El Darwish–Johnston formula
+// used here lands within 3 % of all three (largest spread −2.9 % on HE 260 A,
+// whose large root radius, r/tf = 1.9, makes the bulb a big share of J; the
+// W shapes also carry the approximate r). Iw: the European and Australian
+// tables agree with the flanges-only If·h²/4 within 1 %; the AISC Cw is
+// taken as Iy·h0²/4 with the whole section's Iy (from memory) and differs by
+// up to 2 %.
 const (
 	tolProp = 0.01
 	tolJ    = 0.03
