@@ -49,13 +49,13 @@ func BenchmarkPolygonProperties(b *testing.B) {
 			n += len(h)
 		}
 		b.Run(c.name, func(b *testing.B) {
-			b.ReportMetric(float64(n), "vertices")
 			b.ReportAllocs()
 			for b.Loop() {
 				if _, err := c.p.Properties(); err != nil {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(n), "vertices")
 		})
 	}
 }
