@@ -673,7 +673,11 @@ func (r *run) combination(i, c int, cr *CombinationResult, tr *Tracer, axFloor [
 	}
 	if tr.On() {
 		tr.comb, tr.axis = name, ""
-		tr.Step("N*", "", "design axial compression (compression positive)", KN(act.NStar), "kN").Noted(act.Theory.String() + " analysis")
+		note := "first-order analysis"
+		if act.Theory == SecondOrder {
+			note = "second-order analysis"
+		}
+		tr.Step("N*", "", "design axial compression (compression positive)", KN(act.NStar), "kN").Noted(note)
 	}
 	for a := range Axes {
 		ax := &r.ax[a]
