@@ -287,7 +287,7 @@ func (r *run) resolve() {
 			} else if j, ok := index[name]; ok {
 				c = j
 			}
-			if c >= 0 && ai[c] < 0 { // the first row of a combination wins
+			if c >= 0 && ai[c] < 0 && finiteActions(&mem.Actions[k]) { // the first row of a combination wins
 				ai[c] = int32(k)
 				ns[c] = mem.Actions[k].NStar
 			}
@@ -318,6 +318,17 @@ func (r *run) resolve() {
 		rep.Assumptions = append(rep.Assumptions,
 			"the user declares that second-order analyses also modelled member (P-delta) effects: delta_b = 1 for their results")
 	}
+}
+
+// finiteActions reports whether every value of a is a finite number; a row
+// with NaN or Inf is treated as missing (missing-actions).
+func finiteActions(a *Actions) bool {
+	x := a.NStar
+	for k := range a.Moments {
+		m := &a.Moments[k]
+		x += m.Start + m.End + m.Peak
+	}
+	return !math.IsNaN(x) && !math.IsInf(x, 0)
 }
 
 func describeDefault(d RestraintDefault) string {
@@ -535,6 +546,9 @@ func (r *run) memberReasons(i int) (floor Verdict, axFloor [2]Verdict) {
 		sk.add(Reason{Code: CodeNoDesignCombinations, Message: msgNoDesignCombinations})
 	}
 	for k := range sk.rs {
+		if sk.rs[k].Combination != "" {
+			continue // a problem of one combination: folded in there
+		}
 		v := sk.rs[k].Verdict()
 		switch sk.rs[k].Axis {
 		case "major":
@@ -664,6 +678,19 @@ func (r *run) combination(i, c int, cr *CombinationResult, tr *Tracer, axFloor [
 	}
 	act := &mem.Actions[k]
 	cr.Theory, cr.NStar = act.Theory, Num(act.NStar)
+	ambiguous, problem := false, Pass
+	for p := range mem.Problems {
+		pr := &mem.Problems[p]
+		if pr.Combination != "" && pr.Combination != name {
+			continue
+		}
+		if pr.Code == CodeSignConventionAmbiguous {
+			ambiguous = true
+		}
+		if pr.Combination != "" {
+			problem = problem.Worse(pr.Verdict())
+		}
+	}
 	if act.Theory == SecondOrder {
 		msg := msgSecondOrderResults
 		if r.opt.MemberPDeltaModelled {
@@ -682,16 +709,17 @@ func (r *run) combination(i, c int, cr *CombinationResult, tr *Tracer, axFloor [
 	for a := range Axes {
 		ax := &r.ax[a]
 		*ax = AxisContext{
-			Member:      &r.mc,
-			Setup:       &r.mc.Axes[a],
-			Axis:        Axis(a),
-			Combination: c,
-			Name:        name,
-			Actions:     act,
-			Moments:     &act.Moments[a],
-			NStar:       act.NStar,
-			Sway:        r.sp.Sway(i, Axis(a), c),
-			sink:        &r.sink,
+			Member:        &r.mc,
+			Setup:         &r.mc.Axes[a],
+			Axis:          Axis(a),
+			Combination:   c,
+			Name:          name,
+			Actions:       act,
+			Moments:       &act.Moments[a],
+			NStar:         act.NStar,
+			Sway:          r.sp.Sway(i, Axis(a), c),
+			SignAmbiguous: ambiguous,
+			sink:          &r.sink,
 		}
 		ar := &cr.Axes[a]
 		ar.Leaning = ax.Sway.Role == RoleLeaning
@@ -706,7 +734,7 @@ func (r *run) combination(i, c int, cr *CombinationResult, tr *Tracer, axFloor [
 		if ar.Leaning && HasEndMoments(ax.Moments) {
 			ax.Reason(CodeMixedSwayFlags, msgMixedSwayFlags)
 		}
-		ar.Verdict = axFloor[a].Worse(r.sink.worst(am))
+		ar.Verdict = axFloor[a].Worse(r.sink.worst(am)).Worse(problem)
 	}
 	if r.opt.Scope == "full" {
 		r.cc = CombinationContext{Member: &r.mc, Combination: c, Name: name, Actions: act,

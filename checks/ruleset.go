@@ -143,6 +143,10 @@ type AxisContext struct {
 	// Sway is the role of the axis and, for sway and leaning axes, its
 	// elastic buckling load factor from the run's SwayProvider.
 	Sway SwayValue
+	// SignAmbiguous: the reader could not tell the moments' sign convention
+	// for this combination (sign-convention-ambiguous): the curvature is
+	// unknown, so beta_m must be taken as -1.
+	SignAmbiguous bool
 
 	sink *reasonSink
 }

@@ -56,6 +56,7 @@ const (
 	noteSwayMax
 	noteNoMoment
 	noteInteriorPeak
+	noteSignAmbiguous
 	nNotes
 )
 
@@ -86,6 +87,7 @@ func noteText() [nNotes]string {
 		noteSwayMax:             "sway or leaning axis: delta_m = max(delta_b, delta_s)",
 		noteNoMoment:            "no moment about this axis: nothing to amplify",
 		noteInteriorPeak:        "M*_m is the largest moment along the member (analysis stations)",
+		noteSignAmbiguous:       "sign convention of the moments ambiguous: beta_m = -1 (conservative)",
 	}
 }
 
@@ -98,8 +100,10 @@ const (
 )
 
 // betaM returns beta_m and the note that explains it (4.4.2.2).
-func betaM(s *checks.AxisSetup, mo *checks.AxisMoments) (float64, int) {
+func betaM(s *checks.AxisSetup, mo *checks.AxisMoments, ambiguous bool) (float64, int) {
 	switch {
+	case ambiguous:
+		return -1, noteSignAmbiguous
 	case s.Transverse || mo.Transverse || mo.InteriorUnknown:
 		return -1, noteTransverse
 	case s.Length < s.MemberLength*(1-1e-9):
@@ -144,7 +148,7 @@ func (r *Rules) Amplify(cx *checks.AxisContext, out *checks.AxisResult, tr *chec
 	}
 
 	// beta_m and c_m.
-	beta, why := betaM(s, mo)
+	beta, why := betaM(s, mo, cx.SignAmbiguous)
 	cm := Cm(beta)
 	out.BetaM, out.Cm = checks.Num(beta), checks.Num(cm)
 	if on {

@@ -456,3 +456,37 @@ func TestGoverningCombination(t *testing.T) {
 		t.Errorf("summary %+v", s)
 	}
 }
+
+// TestCombinationProblems: a reader's problem that names a combination
+// applies to it alone; sign-convention-ambiguous gives beta_m = -1 there.
+// source: design §4.2 (sign conventions: beta_m = -1, conservative; axial-sign-suspect per combination)
+func TestCombinationProblems(t *testing.T) {
+	m := column("P", iFor(8000e3, 4000), iFor(4000e3, 4000))
+	m.Actions = []checks.Actions{act("C1", 500, 40, -20), act("C2", 500, 40, -20), act("C3", 500, 40, -20)}
+	m.Problems = []checks.Reason{
+		{Code: checks.CodeSignConventionAmbiguous, Message: "axial force too small to decide", Combination: "C2"},
+		{Code: checks.CodeAxialSignSuspect, Message: "most columns in tension", Combination: "C3"},
+	}
+	rep := runAS(t, model(m), checks.DefaultOptions())
+	el := &rep.Elements[0]
+	c := el.Combinations
+	near(t, "beta_m C1", c[0].Axes[0].BetaM, 0.5, 0) // source: AS 4100 4.4.2.2, 20/40 reverse curvature
+	near(t, "beta_m C2", c[1].Axes[0].BetaM, -1, 0)  // source: design §4.2, conservative
+	if c[0].Verdict != checks.Pass || c[1].Verdict != checks.Pass || c[2].Verdict != checks.NeedsAnalysis {
+		t.Errorf("verdicts %v %v %v", c[0].Verdict, c[1].Verdict, c[2].Verdict)
+	}
+	wantVerdict(t, el, checks.NeedsAnalysis)
+	if el.GoverningCombination != "C3" {
+		t.Errorf("governing %q", el.GoverningCombination)
+	}
+}
+
+// TestNonFiniteActions: a row with NaN is missing, never a pass.
+// source: design §5.4 (missing data is needs-analysis)
+func TestNonFiniteActions(t *testing.T) {
+	m := column("N", iFor(8000e3, 4000), iFor(4000e3, 4000))
+	m.Actions = []checks.Actions{act("ULS", math.NaN(), 40, -20)}
+	rep := runAS(t, model(m), checks.DefaultOptions())
+	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
+	wantReason(t, &rep.Elements[0], checks.CodeMissingActions, "")
+}
