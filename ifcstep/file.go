@@ -88,6 +88,8 @@ func (l Limits) withDefaults() Limits {
 type Options struct {
 	Limits  Limits // zero fields take the defaults of DefaultLimits
 	Workers int    // goroutines for indexing; 0 = runtime.GOMAXPROCS(0)
+
+	chunkSize int // tests: split the data section into chunks of about this many bytes
 }
 
 func (o Options) workers() int {
@@ -116,6 +118,7 @@ type File struct {
 	cplx    []uint32 // slots of complex instances, ascending
 	dense   []uint32 // id -> slot+1 when ids are dense; else nil
 	perm    []uint32 // slots sorted by id when ids are neither dense nor ascending
+	relexed int      // chunks skimmed again because their guessed start was wrong
 
 	byTypeOnce  sync.Once
 	byTypeStart []uint32 // CSR: slots of type t are byTypeSlots[byTypeStart[t]:byTypeStart[t+1]]

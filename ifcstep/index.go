@@ -428,20 +428,33 @@ const (
 
 // indexData indexes the data section that starts at start. It returns the
 // offset of the section's ENDSEC.
-func (f *File) indexData(start, workers int) (int, *perr) {
+func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 	data := f.data
 	size := len(data) - start
 	nchunks := 1
-	if workers > 1 && size >= 2*minChunk {
+	switch {
+	case chunkSize > 0: // tests
+		nchunks = min(max(1, size/chunkSize), 64)
+	case workers > 1 && size >= 2*minChunk:
 		nchunks = min(4*workers, size/minChunk)
 	}
 	nchunks = max(nchunks, (size+maxChunk-1)/maxChunk)
-	chunks := make([]chunk, nchunks)
-	chunks[0].start = start
+	starts := make([]int, 1, nchunks)
+	starts[0] = start
+	bound := func(i int) int { return start + int(int64(size)*int64(i)/int64(nchunks)) }
 	for i := 1; i < nchunks; i++ {
-		b := start + int(int64(size)*int64(i)/int64(nchunks))
-		b = max(b, chunks[i-1].start)
-		chunks[i].start = guessStart(data, b, len(data))
+		// Look for a start only within the chunk's own range, so that the
+		// guesses cost one pass over the data in all; a range without one is
+		// left to the previous chunk.
+		b, limit := bound(i), bound(i+1)
+		if g := guessStart(data, b, limit); g < limit && g > starts[len(starts)-1] {
+			starts = append(starts, g)
+		}
+	}
+	nchunks = len(starts)
+	chunks := make([]chunk, nchunks)
+	for i, st := range starts {
+		chunks[i].start = st
 	}
 	for i := range chunks {
 		chunks[i].stop = len(data) + 1
@@ -475,6 +488,7 @@ func (f *File) indexData(start, workers int) (int, *perr) {
 	for i := range chunks {
 		c := &chunks[i]
 		if c.start != pos || !(nchunks > 1 && workers > 1) {
+			f.relexed += boolInt(c.start != pos && nchunks > 1 && workers > 1)
 			*c = chunk{start: pos, stop: c.stop}
 			if c.stop < pos {
 				c.stop = pos

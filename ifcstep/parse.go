@@ -18,7 +18,7 @@ func Parse(data []byte, name string, opt Options) (*File, error) {
 		return nil, &Error{File: name, Pos: Position{Line: 1, Column: 1}, Kind: ErrLimit,
 			Msg: "file of " + itoa(len(data)) + " bytes is larger than the limit of " + itoa(int(f.lim.MaxFileSize)) + " bytes"}
 	}
-	if err := f.parse(opt.workers()); err != nil {
+	if err := f.parse(opt.workers(), opt.chunkSize); err != nil {
 		return nil, err
 	}
 	return f, nil
@@ -28,7 +28,7 @@ func (f *File) fail(e *perr) *Error {
 	return f.errAt(e.off, e.id, e.kind, e.msg)
 }
 
-func (f *File) parse(workers int) error {
+func (f *File) parse(workers, chunkSize int) error {
 	data := f.data
 	p, e := skipSpace(data, skipBOM(data))
 	if e != nil {
@@ -85,7 +85,7 @@ func (f *File) parse(workers int) error {
 	if q, e = f.expectSemi(q); e != nil {
 		return f.fail(e)
 	}
-	end, e := f.indexData(q, workers)
+	end, e := f.indexData(q, workers, chunkSize)
 	if e != nil {
 		return f.fail(e)
 	}

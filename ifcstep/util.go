@@ -68,3 +68,10 @@ func describe(data []byte, p int) string {
 	}
 	return "byte 0x" + strconv.FormatUint(uint64(c), 16)
 }
+
+func boolInt(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
