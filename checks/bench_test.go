@@ -62,9 +62,11 @@ func benchModel(n, nc int) *checks.Model {
 // (go test -run - -bench Run -benchtime 3x -cpu 1 ./checks/).
 //
 //   - trace=none: the check alone.
-//   - trace=full: the check, then every element's full trace rebuilt into
-//     one reused buffer (TraceOnDemand), as a streaming writer does.
-//   - trace=summary: the governing combination's steps kept per element.
+//   - trace=full, trace=summary: the check, then every element's trace
+//     rebuilt into one reused buffer (TraceOnDemand), as a streaming writer
+//     does.
+//   - trace=summary/stored: the summary kept in Element.Trace (some 22 steps
+//     of about 450 bytes per member).
 func BenchmarkRun(b *testing.B) {
 	m := benchModel(100_000, 10)
 	rs := as4100.New()
@@ -100,6 +102,12 @@ func BenchmarkRun(b *testing.B) {
 		run(b, opt, true)
 	})
 	b.Run("trace=summary", func(b *testing.B) {
+		opt := checks.DefaultOptions()
+		opt.Trace = "summary"
+		opt.TraceOnDemand = true
+		run(b, opt, true)
+	})
+	b.Run("trace=summary/stored", func(b *testing.B) {
 		opt := checks.DefaultOptions()
 		opt.Trace = "summary"
 		run(b, opt, false)

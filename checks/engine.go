@@ -41,7 +41,6 @@ const (
 	fNoLength
 	fAssumedE
 	fDirDefault
-	fBlockingProblem
 	fProblemSection // the member's Problems already name these codes
 	fProblemLength
 	fProblemRestraint
@@ -130,6 +129,9 @@ func RunWith(m *Model, rs RuleSet, sp SwayProvider, opt Options) (*Report, error
 		return nil, optionError("a model, a rule set and a sway provider are required")
 	}
 	r := &run{m: m, rs: rs, sp: sp, opt: opt}
+	for a := range r.ax {
+		r.ax[a] = AxisContext{Member: &r.mc, Setup: &r.mc.Axes[a], Axis: Axis(a), sink: &r.sink}
+	}
 	switch opt.Trace {
 	case "", "full":
 		r.level = traceFull
@@ -351,11 +353,7 @@ func describeDefault(d RestraintDefault) string {
 func (r *run) setup(mem *Member, ms *memberSetup, eDefault float64) {
 	*ms = memberSetup{}
 	for k := range mem.Problems {
-		code := mem.Problems[k].Code
-		if CodeVerdict(code) != Pass {
-			ms.flags |= fBlockingProblem
-		}
-		switch code {
+		switch mem.Problems[k].Code {
 		case CodeMissingSection:
 			ms.flags |= fProblemSection
 		case CodeMissingLength:
@@ -707,20 +705,13 @@ func (r *run) combination(i, c int, cr *CombinationResult, tr *Tracer, axFloor [
 		tr.Step("N*", "", "design axial compression (compression positive)", KN(act.NStar), "kN").Noted(note)
 	}
 	for a := range Axes {
+		// Member, Setup, Axis and the sink are fixed per run (newRun); only
+		// the combination's fields change, which saves a struct copy per axis.
 		ax := &r.ax[a]
-		*ax = AxisContext{
-			Member:        &r.mc,
-			Setup:         &r.mc.Axes[a],
-			Axis:          Axis(a),
-			Combination:   c,
-			Name:          name,
-			Actions:       act,
-			Moments:       &act.Moments[a],
-			NStar:         act.NStar,
-			Sway:          r.sp.Sway(i, Axis(a), c),
-			SignAmbiguous: ambiguous,
-			sink:          &r.sink,
-		}
+		ax.Combination, ax.Name = c, name
+		ax.Actions, ax.Moments, ax.NStar = act, &act.Moments[a], act.NStar
+		ax.Sway = r.sp.Sway(i, Axis(a), c)
+		ax.SignAmbiguous = ambiguous
 		ar := &cr.Axes[a]
 		ar.Leaning = ax.Sway.Role == RoleLeaning
 		am := len(r.sink.rs)
