@@ -226,22 +226,31 @@ func (f *File) ByType(typ string) []Instance {
 
 // TypeCounts returns the number of instances of each (upper-case) type.
 func (f *File) TypeCounts() map[string]int {
-	f.buildByType()
+	counts := f.counts()
 	m := make(map[string]int, len(f.types))
 	for t, name := range f.types {
-		if n := int(f.byTypeStart[t+1] - f.byTypeStart[t]); n > 0 {
-			m[name] = n
+		if counts[t] > 0 {
+			m[name] = counts[t]
 		}
 	}
 	return m
 }
 
+// counts returns the number of instances of each type index.
+func (f *File) counts() []int {
+	counts := make([]int, len(f.types))
+	for _, t := range f.typ {
+		counts[t]++
+	}
+	return counts
+}
+
 // Types returns the distinct (upper-case) type names, sorted.
 func (f *File) Types() []string {
-	f.buildByType()
+	counts := f.counts()
 	out := make([]string, 0, len(f.types))
 	for t, name := range f.types {
-		if f.byTypeStart[t+1] > f.byTypeStart[t] {
+		if counts[t] > 0 {
 			out = append(out, name)
 		}
 	}

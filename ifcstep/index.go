@@ -2,6 +2,7 @@ package ifcstep
 
 import (
 	"bytes"
+	"encoding/binary"
 	"slices"
 	"sync"
 	"sync/atomic"
@@ -140,6 +141,31 @@ func hasKeyword(data []byte, p int, kw string) bool {
 
 const maxTypes = 1<<16 - 1
 
+// keyChar marks the bytes that continue a keyword.
+var keyChar = func() (t [256]bool) {
+	for c := 0; c < 256; c++ {
+		t[c] = isKeyChar(byte(c))
+	}
+	return t
+}()
+
+// nameHash hashes a type name from its length and its first and last eight
+// bytes: no per-byte dependency chain, and entity names that share a prefix
+// differ at the end.
+func nameHash(b []byte) uint32 {
+	var lo, hi uint64
+	if len(b) >= 8 {
+		lo = binary.LittleEndian.Uint64(b)
+		hi = binary.LittleEndian.Uint64(b[len(b)-8:])
+	} else {
+		for i, c := range b {
+			lo |= uint64(c) << (8 * i)
+		}
+	}
+	h := (lo*0x9E3779B97F4A7C15 ^ hi) * 0xBF58476D1CE4E5B9
+	return uint32(h>>32) ^ uint32(len(b))
+}
+
 // typeTable interns type names of one chunk (raw bytes, as written).
 type typeTable struct {
 	slots  []uint16 // open addressing; value = index+1, 0 = empty
@@ -275,15 +301,12 @@ func skim(data []byte, c *chunk, lim *Limits) {
 		} else {
 			k := q
 			if q < n && (isAlpha(data[q]) || data[q] == '!') {
-				h := uint32(2166136261)
-				h = (h ^ uint32(data[q])) * 16777619
 				q++
-				for q < n && isKeyChar(data[q]) {
-					h = (h ^ uint32(data[q])) * 16777619
+				for q < n && keyChar[data[q]] {
 					q++
 				}
 				var ok bool
-				if t, ok = c.tt.lookup(data[k:q], h); !ok {
+				if t, ok = c.tt.lookup(data[k:q], nameHash(data[k:q])); !ok {
 					c.err = &perr{off: k, id: id32, kind: ErrLimit, msg: "more than 65535 distinct entity types"}
 					return
 				}
@@ -363,12 +386,10 @@ func skimComplex(data []byte, p int, id uint32, c *chunk, lim *Limits) (int, uin
 			return q, 0, endOr(data, q, id, "expected a record name in a complex instance, found ")
 		}
 		k := q
-		h := uint32(2166136261)
 		for q < n && (isKeyChar(data[q]) || q == k && data[q] == '!') {
-			h = (h ^ uint32(data[q])) * 16777619
 			q++
 		}
-		t, ok := c.tt.lookup(data[k:q], h)
+		t, ok := c.tt.lookup(data[k:q], nameHash(data[k:q]))
 		if !ok {
 			return k, 0, &perr{off: k, id: id, kind: ErrLimit, msg: "more than 65535 distinct entity types"}
 		}
