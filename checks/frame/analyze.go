@@ -132,7 +132,7 @@ func (sys *system) buckle(m *Model, ci int, f *factor, method Eigen, o Options) 
 	if err != nil {
 		return b, wrapCombination(ci, c.Name, err)
 	}
-	thr := 1e-12 * spectrumScale(ep.theta)
+	thr := 1e-12 * ep.scale
 	for i, th := range ep.theta {
 		if !(th > thr) {
 			break
@@ -159,14 +159,6 @@ func (sys *system) buckle(m *Model, ci int, f *factor, method Eigen, o Options) 
 	}
 	b.Ke = memberKe(m, c.Compression, b.Lambda, sys.ms)
 	return b, nil
-}
-
-func spectrumScale(theta []float64) float64 {
-	s := 0.0
-	for _, t := range theta {
-		s = math.Max(s, math.Abs(t))
-	}
-	return s
 }
 
 type combinationError struct {

@@ -166,36 +166,93 @@ func analyse(g0 *graph, perm0 []int32) *symbolic {
 		sy.first[v+1] = sy.first[v] + g.w[v]
 	}
 
-	// Fundamental supernodes.
-	snOf := make([]int32, n)
+	// Fundamental supernodes: runs of vertices where each is the only child
+	// of the next and their structures nest.
+	var fStart []int32
 	for j := 0; j < n; j++ {
 		if j > 0 && parent[j-1] == int32(j) && nChildV[j] == 1 && len(structs[j-1]) == len(structs[j])+1 {
-			snOf[j] = snOf[j-1]
 			continue
 		}
-		snOf[j] = int32(len(sy.snStart))
-		sy.snStart = append(sy.snStart, int32(j))
+		fStart = append(fStart, int32(j))
 	}
-	ns := len(sy.snStart)
-	sy.snStart = append(sy.snStart, int32(n))
+	nf := len(fStart)
+	fStart = append(fStart, int32(n))
+	fOf := make([]int32, n) // vertex → fundamental supernode
+	for f := 0; f < nf; f++ {
+		for v := fStart[f]; v < fStart[f+1]; v++ {
+			fOf[v] = int32(f)
+		}
+	}
+	fk := make([]int, nf)
+	fr := make([]int, nf)
+	for f := 0; f < nf; f++ {
+		last := fStart[f+1] - 1
+		fk[f] = int(sy.first[last+1] - sy.first[fStart[f]])
+		for _, v := range structs[last] {
+			fr[f] += int(g.w[v])
+		}
+	}
+	fParent := func(f int) int {
+		if p := parent[fStart[f+1]-1]; p >= 0 {
+			return int(fOf[p])
+		}
+		return -1
+	}
+
+	// Relaxed amalgamation: a supernode joins its parent when the parent
+	// follows it directly (it is the parent's last child, so the columns
+	// stay contiguous) and the merge stores few explicit zeros. Fewer,
+	// wider supernodes make the dense kernels efficient; the many tiny
+	// fronts of subdivided members would otherwise cost more in call
+	// overhead than in arithmetic.
+	const (
+		relaxCols  = 24   // always merge up to this many columns,
+		relaxMid   = 96   // up to this many
+		relaxZeroM = 0.15 // while zeros stay below this fraction,
+		relaxZeroL = 0.02 // and above it below this one
+	)
+	groupOf := make([]int32, nf)
+	var gFirst []int32 // first fundamental supernode of each group
+	for f := 0; f < nf; {
+		gFirst = append(gFirst, int32(f))
+		k := fk[f]
+		entries := (fk[f] + fr[f]) * fk[f]
+		groupOf[f] = int32(len(gFirst) - 1)
+		for f+1 < nf && fParent(f) == f+1 {
+			km := k + fk[f+1]
+			merged := (km + fr[f+1]) * km
+			true_ := entries + (fk[f+1]+fr[f+1])*fk[f+1]
+			zeros := float64(merged-true_) / float64(merged)
+			if km > relaxCols && (km > relaxMid || zeros > relaxZeroM) && zeros > relaxZeroL {
+				break
+			}
+			f++
+			k, entries = km, true_
+			groupOf[f] = int32(len(gFirst) - 1)
+		}
+		f++
+	}
+	ns := len(gFirst)
+	gFirst = append(gFirst, int32(nf))
+	sy.snStart = make([]int32, ns+1)
 	sy.snParent = make([]int32, ns)
 	sy.nChild = make([]int32, ns)
 	sy.snRowsV = make([][]int32, ns)
 	sy.snK = make([]int32, ns)
 	sy.snR = make([]int32, ns)
+	sy.snStart[ns] = int32(n)
 	for s := 0; s < ns; s++ {
-		last := sy.snStart[s+1] - 1
+		fl := int(gFirst[s+1]) - 1 // last fundamental supernode of the group
+		sy.snStart[s] = fStart[gFirst[s]]
+		last := fStart[fl+1] - 1
 		k := int(sy.first[last+1] - sy.first[sy.snStart[s]])
-		r := 0
-		for _, v := range structs[last] {
-			r += int(g.w[v])
-		}
+		r := fr[fl]
 		sy.snRowsV[s] = structs[last]
 		sy.snK[s], sy.snR[s] = int32(k), int32(r)
 		sy.snParent[s] = -1
-		if p := parent[last]; p >= 0 {
-			sy.snParent[s] = snOf[p]
-			sy.nChild[snOf[p]]++
+		if p := fParent(fl); p >= 0 {
+			sy.snParent[s] = groupOf[p]
+			sy.nChild[groupOf[p]]++
 		}
 		fk, fr := float64(k), float64(r)
 		sy.flops += fk*fk*fk/3 + fk*fk*fr + fk*fr*fr/2

@@ -47,6 +47,7 @@ type eigenpairs struct {
 	theta []float64
 	x     [][]float64
 	steps int
+	scale float64 // largest |θ| seen: the operator's norm, or a lower bound
 }
 
 // denseTop computes all eigenpairs of C densely and returns the nev
@@ -80,6 +81,9 @@ func denseTop(op *operator, n, nev int) (eigenpairs, error) {
 	es.VectorsTo(&vecs)
 	var ep eigenpairs
 	ep.steps = n
+	for _, v := range vals {
+		ep.scale = math.Max(ep.scale, math.Abs(v))
+	}
 	for k := n - 1; k >= 0 && len(ep.theta) < nev; k-- {
 		ep.theta = append(ep.theta, vals[k])
 		ep.x = append(ep.x, mat.Col(nil, k, &vecs))
@@ -202,6 +206,9 @@ func lanczos(op *operator, n, nev int, tol float64) (eigenpairs, error) {
 		vals, y, idx, done, err := ritz(m, beta)
 		if err != nil {
 			return ep, err
+		}
+		for _, v := range vals {
+			ep.scale = math.Max(ep.scale, math.Abs(v))
 		}
 		if done {
 			want := min(nev, m)

@@ -168,8 +168,10 @@ type Options struct {
 	Ordering Ordering
 	// Eigen is the eigenvalue method (default EigenAuto).
 	Eigen Eigen
-	// Tol is the relative accuracy wanted of the buckling load factors
-	// (0: 1e-9).
+	// Tol is the convergence tolerance of the Lanczos iteration (0: 1e-7):
+	// a mode is accepted when its residual ‖C·x − θ·x‖ is below Tol·|θ|,
+	// θ = 1/λ. The relative error of λ is then below Tol, and usually
+	// near Tol² divided by the relative gap to the next mode.
 	Tol float64
 }
 
@@ -181,7 +183,7 @@ func (o Options) withDefaults() Options {
 		o.Modes = 3
 	}
 	if !(o.Tol > 0) {
-		o.Tol = 1e-9
+		o.Tol = 1e-7
 	}
 	return o
 }
