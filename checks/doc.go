@@ -60,7 +60,7 @@
 // # Trace
 //
 // Each step (Step) names a quantity, the clause, the formula, its inputs with
-// units and the value in report units (kN, kNm, mm, MPa, mm4, "" for
+// units and the value in report units (kN, kNm, mm, MPa, mm⁴, "" for
 // dimensionless). Options.Trace: "full" keeps every combination, "summary"
 // the member-level steps and the governing combination, "none" nothing. Steps
 // are fixed structs recorded through a Tracer without fmt or maps. A stored

@@ -64,6 +64,13 @@ type memberSetup struct {
 	Axes    [2]AxisSetup
 	flags   uint16
 	axFlags [2]uint8
+	eMsg    int32 // index into run.eMsgs when E is assumed
+}
+
+// eKey is one assumed modulus and where it came from.
+type eKey struct {
+	e   float64
+	src string
 }
 
 // run is the state of one run; the Report keeps it to rebuild traces.
@@ -83,7 +90,7 @@ type run struct {
 	gov    []int32   // governing combination per member, -1 = none
 
 	// Messages built once per run.
-	msgAssumedE        string
+	eMsgs              []string // assumed-modulus messages, one per distinct E and source
 	msgAssumedRestrain [2]string
 
 	// Scratch reused across members.
@@ -253,14 +260,25 @@ func (r *run) resolve() {
 		}
 	}
 	eDefault, eClause := r.rs.Modulus()
-	var nAssumedE, nDirDefault int
+	var nDirDefault int
 	var nAssumed [2]int
+	eIndex := map[eKey]int32{}
+	var eCount []int
 	for i := range m.Members {
 		mem := &m.Members[i]
 		ms := &r.setups[i]
 		r.setup(mem, ms, eDefault)
 		if ms.flags&fAssumedE != 0 {
-			nAssumedE++
+			k := eKey{ms.E, ms.ESource}
+			x, ok := eIndex[k]
+			if !ok {
+				x = int32(len(r.eMsgs))
+				eIndex[k] = x
+				r.eMsgs = append(r.eMsgs, r.assumedEMessage(k, eClause))
+				eCount = append(eCount, 0)
+			}
+			ms.eMsg = x
+			eCount[x]++
 		}
 		if ms.flags&fDirDefault != 0 {
 			nDirDefault++
@@ -297,13 +315,8 @@ func (r *run) resolve() {
 	}
 
 	rep := r.rep
-	if nAssumedE > 0 {
-		src, what := "the "+r.rs.Title()+" default ("+eClause+")", eDefault
-		if r.opt.Modulus > 0 {
-			src, what = "the request's default", r.opt.Modulus
-		}
-		r.msgAssumedE = "E = " + ftoa(what) + " MPa, " + src + ": the model gives no modulus"
-		rep.Assumptions = append(rep.Assumptions, r.msgAssumedE+" ("+itoa(nAssumedE)+" member(s))")
+	for x, msg := range r.eMsgs {
+		rep.Assumptions = append(rep.Assumptions, msg+" ("+itoa(eCount[x])+" member(s))")
 	}
 	for a, d := range r.opt.Defaults {
 		if nAssumed[a] == 0 {
@@ -331,6 +344,20 @@ func finiteActions(a *Actions) bool {
 		x += m.Start + m.End + m.Peak
 	}
 	return !math.IsNaN(x) && !math.IsInf(x, 0)
+}
+
+// assumedEMessage explains an assumed modulus.
+func (r *run) assumedEMessage(k eKey, clause string) string {
+	var src string
+	switch k.src {
+	case "default":
+		src = "the " + r.rs.Title() + " default (" + clause + ")"
+	case "request":
+		src = "the request's default"
+	default:
+		src = "from " + quote(k.src)
+	}
+	return "E = " + ftoa(k.e) + " MPa, " + src + ": the model gives no modulus"
 }
 
 func describeDefault(d RestraintDefault) string {
@@ -533,11 +560,7 @@ func (r *run) memberReasons(i int) (floor Verdict, axFloor [2]Verdict) {
 		}
 	}
 	if ms.flags&fAssumedE != 0 {
-		msg := r.msgAssumedE
-		if ms.ESource != "request" && ms.ESource != "default" {
-			msg = "E from " + ms.ESource + ", not from the model"
-		}
-		sk.add(Reason{Code: CodeAssumedModulus, Message: msg})
+		sk.add(Reason{Code: CodeAssumedModulus, Message: r.eMsgs[ms.eMsg]})
 	}
 	sk.rs = r.sp.MemberNotes(i, sk.rs)
 	if r.nc == 0 {

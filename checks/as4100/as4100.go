@@ -193,12 +193,12 @@ func (r *Rules) Member(mc *checks.MemberContext, tr *checks.Tracer) {
 		q := &r.q[a]
 		if !math.IsNaN(s.Nom) {
 			tr.Step(q.nom, c.Nom, "pi^2 E I / (k_e L)^2", checks.KN(s.Nom), "kN").
-				Add("E", mc.E, "MPa").Add("I", s.I, "mm4").Add("k_e", s.Ke, "").Add("L", s.Length, "mm").
+				Add("E", mc.E, "MPa").Add("I", s.I, "mm⁴").Add("k_e", s.Ke, "").Add("L", s.Length, "mm").
 				Noted(r.notes[roleNote(s.Restraint)])
 		}
 		if s.Restraint == checks.Sway && !math.IsNaN(s.Nomb) {
 			tr.Step(q.nomb, c.Nom, "pi^2 E I / (k_eb L)^2", checks.KN(s.Nomb), "kN").
-				Add("E", mc.E, "MPa").Add("I", s.I, "mm4").Add("k_eb", s.BracedKe, "").Add("L", s.Length, "mm").
+				Add("E", mc.E, "MPa").Add("I", s.I, "mm⁴").Add("k_eb", s.BracedKe, "").Add("L", s.Length, "mm").
 				Noted(r.notes[noteBracedKe])
 		}
 	}
