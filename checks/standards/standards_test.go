@@ -14,6 +14,7 @@ func TestLookup(t *testing.T) {
 		if err != nil || rs.Name() != name {
 			t.Fatalf("Lookup(%q) = %v, %v", name, rs, err)
 		}
+		// source: standards-notes §1.0 (AS 4100 2.2.4: E = 200 000 MPa; NZS 3404 follows AS 4100, §2)
 		if e, clause := rs.Modulus(); e != 200_000 || clause == "" {
 			t.Errorf("%s: E = %v (%q)", name, e, clause)
 		}
