@@ -100,6 +100,19 @@ func BenchmarkDecodeAll(b *testing.B) {
 				}
 			}
 		})
+		// the same with AppendAttrs and AppendList into reused buffers
+		b.Run(filepath.Base(path)+"/append", func(b *testing.B) {
+			b.SetBytes(int64(len(data)))
+			b.ReportAllocs()
+			var d decoder
+			for b.Loop() {
+				for s := 0; s < f.Len(); s++ {
+					if err := d.instance(Instance{f: f, s: uint32(s)}); err != nil {
+						b.Fatal(err)
+					}
+				}
+			}
+		})
 	}
 }
 
@@ -151,6 +164,56 @@ func decodeValue(v Value, depth int) error {
 				return err
 			}
 		}
+	}
+	return nil
+}
+
+// decoder decodes like decodeInstance with one reused buffer per depth.
+type decoder struct{ bufs [][]Value }
+
+func (d *decoder) buf(depth int) []Value {
+	for len(d.bufs) <= depth {
+		d.bufs = append(d.bufs, make([]Value, 0, 64))
+	}
+	return d.bufs[depth][:0]
+}
+
+func (d *decoder) instance(in Instance) error {
+	vs, err := in.AppendAttrs(d.buf(0))
+	if err != nil {
+		return err
+	}
+	d.bufs[0] = vs
+	for _, v := range vs {
+		if err := d.value(v, 1); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func (d *decoder) value(v Value, depth int) error {
+	if depth > 100 {
+		return nil
+	}
+	switch v.Kind() {
+	case KindTyped:
+		if _, in, ok := v.Typed(); ok {
+			return d.value(in, depth+1)
+		}
+	case KindList:
+		l, err := v.AppendList(d.buf(depth))
+		if err != nil {
+			return err
+		}
+		d.bufs[depth] = l
+		for _, e := range l {
+			if err := d.value(e, depth+1); err != nil {
+				return err
+			}
+		}
+	default:
+		return decodeValue(v, depth)
 	}
 	return nil
 }

@@ -232,3 +232,25 @@ func TestComplexInstance(t *testing.T) {
 		t.Errorf("TypeCounts = %v", counts)
 	}
 }
+
+// Beyond Limits.MaxWarnings warnings are counted, not kept.
+func TestWarningsCapped(t *testing.T) {
+	var b strings.Builder
+	for i := 1; i <= 50; i++ {
+		b.WriteString("#" + itoa(i) + "=(A(#" + itoa(1000+i) + ")B());\n")
+	}
+	f, err := Parse([]byte(doc(b.String())), "t.ifc", Options{Limits: Limits{MaxWarnings: 10}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := uint32(1); i <= 50; i++ {
+		in, _ := f.Get(i)
+		_, params, _ := in.Attr(0).Typed()
+		l, _ := params.List()
+		f.Deref(in, l[0])
+	}
+	ws := f.Warnings()
+	if len(ws) != 11 || ws[10].Code != "warnings-truncated" || ws[10].Msg != "90 more warnings not kept (limit 10)" {
+		t.Errorf("got %d warnings, last %v", len(ws), ws[len(ws)-1])
+	}
+}

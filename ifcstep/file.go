@@ -125,7 +125,7 @@ type File struct {
 	byTypeSlots []uint32
 
 	lineOnce  sync.Once
-	lineCount []int32 // newlines before each 64 KiB block
+	lineCount []int64 // newlines before each block of 1<<lineBlockShift bytes
 	lineLast  []int64 // offset of the last newline before each block, -1 if none
 
 	namesMu sync.RWMutex
@@ -258,7 +258,9 @@ func (f *File) Types() []string {
 	return out
 }
 
-const lineBlockShift = 16 // Position checkpoints every 64 KiB
+// lineBlockShift sets the spacing of the Position checkpoints: every 4 KiB,
+// so that one Position scans at most 4 KiB.
+const lineBlockShift = 12
 
 // Position returns the line and column of a byte offset, computed lazily. An
 // offset outside the file is clamped to it.
@@ -266,12 +268,12 @@ func (f *File) Position(offset int) Position {
 	return positionOf(f.data, offset, f.lines)
 }
 
-func (f *File) lines() ([]int32, []int64) {
+func (f *File) lines() ([]int64, []int64) {
 	f.lineOnce.Do(func() {
 		nb := len(f.data)>>lineBlockShift + 1
-		count := make([]int32, nb)
+		count := make([]int64, nb)
 		last := make([]int64, nb)
-		n, l := int32(0), int64(-1)
+		n, l := int64(0), int64(-1)
 		for b := 0; b < nb; b++ {
 			count[b], last[b] = n, l
 			lo := b << lineBlockShift
@@ -281,7 +283,7 @@ func (f *File) lines() ([]int32, []int64) {
 			}
 			blk := f.data[lo:hi]
 			if c := countByte(blk, '\n'); c > 0 {
-				n += int32(c)
+				n += int64(c)
 				l = int64(lo + lastIndexByte(blk, '\n'))
 			}
 		}
@@ -291,7 +293,7 @@ func (f *File) lines() ([]int32, []int64) {
 }
 
 // positionOf computes a Position; lines, when non-nil, supplies checkpoints.
-func positionOf(data []byte, off int, lines func() ([]int32, []int64)) Position {
+func positionOf(data []byte, off int, lines func() ([]int64, []int64)) Position {
 	off = max(0, min(off, len(data)))
 	line, lastNL := 0, -1
 	from := 0
@@ -348,9 +350,18 @@ func (f *File) warnLocked(w Warning) {
 	f.warnings = append(f.warnings, w)
 }
 
-// warnAt records a warning at a byte offset.
+// warnAt records a warning at a byte offset. Beyond Limits.MaxWarnings it
+// only counts, without computing the position.
 func (f *File) warnAt(off int, id uint32, code, msg string) {
-	f.Warn(Warning{File: f.Name, Pos: f.Position(off), ID: id, Code: code, Msg: msg})
+	f.warnMu.Lock()
+	full := len(f.warnings) >= f.lim.MaxWarnings
+	if full {
+		f.dropped++
+	}
+	f.warnMu.Unlock()
+	if !full {
+		f.Warn(Warning{File: f.Name, Pos: f.Position(off), ID: id, Code: code, Msg: msg})
+	}
 }
 
 // Deref follows a reference value v found in instance from. A reference to

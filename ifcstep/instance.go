@@ -81,30 +81,35 @@ func (in Instance) Attrs() ([]Value, error) {
 		return nil, nil
 	}
 	var buf [16]Value
-	out := buf[:0]
-	var err error
-	if in.Complex() {
-		out, err = in.records(out)
-	} else {
-		it := in.f.elems(in.open(), len(in.f.data))
-		for {
-			v, ok, e := it.next()
-			if e != nil {
-				err = e
-				break
-			}
-			if !ok {
-				break
-			}
-			out = append(out, v)
-		}
-	}
+	out, err := in.AppendAttrs(buf[:0])
 	if err != nil {
 		return nil, err
 	}
 	res := make([]Value, len(out))
 	copy(res, out)
 	return res, nil
+}
+
+// AppendAttrs appends the top-level attributes to dst and returns the
+// extended slice, as Attrs does; with a reused dst it does not allocate.
+func (in Instance) AppendAttrs(dst []Value) ([]Value, error) {
+	if in.f == nil {
+		return dst, nil
+	}
+	if in.Complex() {
+		return in.records(dst)
+	}
+	it := in.f.elems(in.open(), len(in.f.data))
+	for {
+		v, ok, err := it.next()
+		if err != nil {
+			return dst, err
+		}
+		if !ok {
+			return dst, nil
+		}
+		dst = append(dst, v)
+	}
 }
 
 // records returns the records of a complex instance as typed values.

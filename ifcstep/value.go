@@ -220,29 +220,34 @@ func (v Value) Typed() (name string, inner Value, ok bool) {
 // List returns the elements of a list (typed values are unwrapped). A
 // syntax error inside the list is returned as an *Error.
 func (v Value) List() ([]Value, error) {
-	v = v.unwrap()
-	if v.kind != KindList {
-		return nil, v.wrongKind("a list")
-	}
 	var buf [16]Value
-	out := buf[:0]
-	it := v.f.elems(v.off, v.off+v.n)
-	for {
-		e, ok, err := it.next()
-		if err != nil {
-			return nil, err
-		}
-		if !ok {
-			break
-		}
-		out = append(out, e)
-	}
-	if len(out) == 0 {
-		return []Value{}, nil
+	out, err := v.AppendList(buf[:0])
+	if err != nil {
+		return nil, err
 	}
 	res := make([]Value, len(out))
 	copy(res, out)
 	return res, nil
+}
+
+// AppendList appends the elements of a list to dst and returns the extended
+// slice, as List does; with a reused dst it does not allocate.
+func (v Value) AppendList(dst []Value) ([]Value, error) {
+	v = v.unwrap()
+	if v.kind != KindList {
+		return dst, v.wrongKind("a list")
+	}
+	it := v.f.elems(v.off, v.off+v.n)
+	for {
+		e, ok, err := it.next()
+		if err != nil {
+			return dst, err
+		}
+		if !ok {
+			return dst, nil
+		}
+		dst = append(dst, e)
+	}
 }
 
 // Binary returns the bits of a binary literal "..." as bytes, right-aligned

@@ -193,3 +193,35 @@ func TestAttrs(t *testing.T) {
 		t.Errorf("Deref = %v, %v", tgt, ok)
 	}
 }
+
+func TestAppendNoAlloc(t *testing.T) {
+	f := mustParse(t, doc("#1=IFCX((1.,2.,3.),#2,'a',IFCLABEL('b'),.T.);\n#2=IFCY();\n"))
+	in, _ := f.Get(1)
+	buf := make([]Value, 0, 8)
+	lbuf := make([]Value, 0, 8)
+	allocs := testing.AllocsPerRun(100, func() {
+		vs, err := in.AppendAttrs(buf[:0])
+		if err != nil || len(vs) != 5 {
+			t.Fatalf("AppendAttrs = %v, %v", vs, err)
+		}
+		l, err := vs[0].AppendList(lbuf[:0])
+		if err != nil || len(l) != 3 {
+			t.Fatalf("AppendList = %v, %v", l, err)
+		}
+		if x, ok := l[2].Real(); !ok || x != 3 {
+			t.Fatalf("Real = %v", x)
+		}
+		if id, ok := vs[1].Ref(); !ok || id != 2 {
+			t.Fatalf("Ref = %v", id)
+		}
+		if b, ok := vs[4].Bool(); !ok || !b {
+			t.Fatal("Bool")
+		}
+		if in.Type() != "IFCX" || in.NumAttrs() != 5 || in.Attr(3).Kind() != KindTyped {
+			t.Fatal("Type/NumAttrs/Attr")
+		}
+	})
+	if allocs != 0 {
+		t.Errorf("%v allocations per run, want 0", allocs)
+	}
+}
