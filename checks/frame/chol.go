@@ -5,7 +5,7 @@ import (
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack/lapack64"
+	"gonum.org/v1/gonum/floats"
 )
 
 // Sparse Cholesky factorisation K = L·Lᵀ by the multifrontal method
@@ -292,8 +292,8 @@ func (sy *symbolic) layout() {
 			sizes = sizes[:len(sizes)-1]
 		}
 		if r > 0 && sy.snParent[s] >= 0 {
-			sizes = append(sizes, r*r)
-			depth += r * r
+			sizes = append(sizes, r*(r+1)/2) // packed lower triangle
+			depth += r * (r + 1) / 2
 			sy.stackMax = max(sy.stackMax, depth)
 		}
 	}
@@ -325,7 +325,6 @@ func (sy *symbolic) factorize(a *csr) (*factor, *pivotError) {
 	f := &factor{sy: sy, l: make([]float64, sy.nnz)}
 	rel := make([]int32, a.n)
 	work := make([]float64, sy.maxFront*sy.maxFront)
-	var save []float64
 	stack := make([]float64, 0, sy.stackMax) // update matrices of processed supernodes
 	var stackS []int32                       // their supernodes
 	var stackOff []int                       // and offsets in stack
@@ -366,10 +365,10 @@ func (sy *symbolic) factorize(a *csr) (*factor, *pivotError) {
 			off := stackOff[top]
 			crow := sy.rows[sy.rowsOff[ch]:sy.rowsOff[ch+1]]
 			rc := len(crow)
-			u := stack[off : off+rc*rc]
+			u := stack[off : off+rc*(rc+1)/2]
 			for x := 0; x < rc; x++ {
 				fx := int(rel[crow[x]]) * fs
-				ux := u[x*rc : x*rc+x+1]
+				ux := u[x*(x+1)/2 : x*(x+1)/2+x+1]
 				for y, v := range ux {
 					F[fx+int(rel[crow[y]])] += v
 				}
@@ -380,24 +379,8 @@ func (sy *symbolic) factorize(a *csr) (*factor, *pivotError) {
 		}
 
 		// Dense partial factorisation of the front.
-		if cap(save) < k*k {
-			save = make([]float64, k*k)
-		}
-		save = save[:k*k]
-		for i := 0; i < k; i++ {
-			copy(save[i*k:i*k+i+1], F[i*fs:i*fs+i+1])
-		}
-		f11 := blas64.Symmetric{Uplo: blas.Lower, N: k, Stride: fs, Data: F}
-		_, ok := lapack64.Potrf(f11)
-		if !ok {
-			i, ratio := unblockedPivot(save, k, a, c0)
+		if i, ratio := cholLower(F, fs, k, a, c0); i >= 0 {
 			return nil, &pivotError{dof: c0 + i, ratio: ratio}
-		}
-		for i := 0; i < k; i++ {
-			p := F[i*fs+i]
-			if d := diagOf(a, c0+i); p*p < pivotTol*d {
-				return nil, &pivotError{dof: c0 + i, ratio: p * p / d}
-			}
 		}
 		if r > 0 {
 			l11 := blas64.Triangular{Uplo: blas.Lower, Diag: blas.NonUnit, N: k, Stride: fs, Data: F}
@@ -412,10 +395,10 @@ func (sy *symbolic) factorize(a *csr) (*factor, *pivotError) {
 		}
 		if r > 0 && sy.snParent[s] >= 0 {
 			off := len(stack)
-			stack = stack[:off+r*r] // within stackMax
+			stack = stack[:off+r*(r+1)/2] // within stackMax
 			u := stack[off:]
 			for i := 0; i < r; i++ {
-				copy(u[i*r:i*r+i+1], F[(k+i)*fs+k:(k+i)*fs+k+i+1])
+				copy(u[i*(i+1)/2:i*(i+1)/2+i+1], F[(k+i)*fs+k:(k+i)*fs+k+i+1])
 			}
 			stackS = append(stackS, int32(s))
 			stackOff = append(stackOff, off)
@@ -460,33 +443,44 @@ func diagOf(a *csr, i int) float64 {
 	return 0
 }
 
-// unblockedPivot factors the saved k×k front block column by column to find
-// the first failing pivot, which potrf does not report.
-func unblockedPivot(m []float64, k int, a *csr, c0 int) (int, float64) {
-	for j := 0; j < k; j++ {
-		d := m[j*k+j]
-		for t := 0; t < j; t++ {
-			d -= m[j*k+t] * m[j*k+t]
-		}
-		orig := diagOf(a, c0+j)
-		if orig <= 0 || d < pivotTol*orig {
-			ratio := 0.0
-			if orig > 0 {
-				ratio = d / orig
+// cholLower factors the leading k×k block of F (row-major, stride ld) in
+// place into its lower Cholesky factor, in column panels: an unblocked
+// factorisation of each diagonal block, then a triangular solve and a
+// matrix-product update of the block below it. It checks every pivot
+// against the degree of freedom's own stiffness a[c0+i][c0+i] and returns
+// the first failing column and its pivot ratio, or -1. (LAPACK's potrf
+// does the same work but reports only failure, not where.)
+func cholLower(F []float64, ld, k int, a *csr, c0 int) (int, float64) {
+	const nb = 64
+	for j := 0; j < k; j += nb {
+		w := min(nb, k-j)
+		for c := j; c < j+w; c++ {
+			rc := F[c*ld+j : c*ld+c]
+			d := F[c*ld+c] - floats.Dot(rc, rc)
+			orig := diagOf(a, c0+c)
+			if !(orig > 0) || !(d >= pivotTol*orig) {
+				ratio := 0.0
+				if orig > 0 {
+					ratio = d / orig
+				}
+				return c, ratio
 			}
-			return j, ratio
-		}
-		p := math.Sqrt(d)
-		m[j*k+j] = p
-		for i := j + 1; i < k; i++ {
-			v := m[i*k+j]
-			for t := 0; t < j; t++ {
-				v -= m[i*k+t] * m[j*k+t]
+			p := math.Sqrt(d)
+			F[c*ld+c] = p
+			for i := c + 1; i < j+w; i++ {
+				F[i*ld+c] = (F[i*ld+c] - floats.Dot(F[i*ld+j:i*ld+c], rc)) / p
 			}
-			m[i*k+j] = v / p
 		}
+		if j+w == k {
+			break
+		}
+		// Panel below the diagonal block, then the trailing block.
+		l := blas64.Triangular{Uplo: blas.Lower, Diag: blas.NonUnit, N: w, Stride: ld, Data: F[j*ld+j:]}
+		below := blas64.General{Rows: k - j - w, Cols: w, Stride: ld, Data: F[(j+w)*ld+j:]}
+		blas64.Trsm(blas.Right, blas.Trans, 1, l, below)
+		syrkLower(below, F[(j+w)*ld+j+w:], ld)
 	}
-	return k - 1, 0
+	return -1, 0
 }
 
 // solveL overwrites x with L⁻¹·x; tmp must hold maxFront values.

@@ -174,7 +174,15 @@ func buildMesh(m *Model, o Options) (*mesh, error) {
 		}
 	}
 
-	// Elements.
+	// Elements. Arenas sized for 12 map columns per element, the common
+	// case (fewer at supports, more at releases).
+	total := 0
+	for _, n := range nElem {
+		total += n
+	}
+	ms.elems = make([]element, 0, total)
+	ms.slots = make([]int32, 0, 12*total)
+	ms.coef = make([]float64, 0, 144*total)
 	var cols [24]column
 	for i := range m.Members {
 		mb := &m.Members[i]
