@@ -173,7 +173,7 @@ func newHTMLPage(r *checks.Report, run *Run, u *unitSystem) *htmlPage {
 		p.Calcs = append(p.Calcs, htmlCalc{
 			Anchor: anchor, GlobalID: m.GlobalID, Name: m.Name, Storey: storey,
 			Verdict: e.Verdict.String(), Facts: memberFacts(e, u), Reasons: reasons,
-			Steps: htmlSteps(e.Trace, u),
+			Steps: htmlSteps(elementTrace(r, i, nil), u),
 		})
 	}
 	return p

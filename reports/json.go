@@ -61,8 +61,10 @@ func WriteJSON(w io.Writer, r *checks.Report, run Run) error {
 
 	j.key("elements")
 	j.beginObject()
+	var steps []checks.Step
 	for i := range r.Elements {
-		writeElement(j, &r.Elements[i], r.Scope == "full")
+		steps = elementTrace(r, i, steps[:0])
+		writeElement(j, &r.Elements[i], steps, r.Scope == "full")
 		j.maybeFlush()
 	}
 	j.endObject()
@@ -189,7 +191,7 @@ func writeStorey(j *jsonWriter, s *checks.StoreyResult) {
 	j.endObject()
 }
 
-func writeElement(j *jsonWriter, e *checks.Element, full bool) {
+func writeElement(j *jsonWriter, e *checks.Element, trace []checks.Step, full bool) {
 	m := e.Member
 	j.keyString(m.GlobalID)
 	j.beginObject()
@@ -215,7 +217,7 @@ func writeElement(j *jsonWriter, e *checks.Element, full bool) {
 	}
 	j.endArray()
 
-	writeTrace(j, e.Trace)
+	writeTrace(j, trace)
 	j.endObject()
 }
 
@@ -411,4 +413,14 @@ func writeFrame(j *jsonWriter, f *checks.FrameResult) {
 	j.endArray()
 	writeStrings(j, "notes", f.Notes)
 	j.endObject()
+}
+
+// elementTrace returns element i's trace: the stored steps, or, when the run
+// built traces on demand (checks.Options.TraceOnDemand), the steps rebuilt
+// into buf.
+func elementTrace(r *checks.Report, i int, buf []checks.Step) []checks.Step {
+	if t := r.Elements[i].Trace; t != nil {
+		return t
+	}
+	return r.AppendTrace(buf, i)
 }
