@@ -237,8 +237,13 @@ func skim(data []byte, c *chunk, lim *Limits) {
 	p := c.start
 	var e *perr
 	for {
-		// Between statements: white space and comments.
-		if p, e = skipSpace(data, p); e != nil {
+		// Between statements: white space and comments. Fast path: one
+		// line break before the next '#'.
+		if p+1 < n && data[p] == '\n' && data[p+1] == '#' {
+			p++
+		} else if p+2 < n && data[p] == '\r' && data[p+1] == '\n' && data[p+2] == '#' {
+			p += 2
+		} else if p, e = skipSpace(data, p); e != nil {
 			c.err = e
 			return
 		}
@@ -276,19 +281,24 @@ func skim(data []byte, c *chunk, lim *Limits) {
 			return
 		}
 		id32 := uint32(id)
-		if q, e = skipSpace(data, q); e != nil {
-			e.id = id32
-			c.err = e
-			return
+		if q < n && data[q] != '=' {
+			if q, e = skipSpace(data, q); e != nil {
+				e.id = id32
+				c.err = e
+				return
+			}
 		}
 		if q >= n || data[q] != '=' {
 			c.err = endOr(data, q, id32, "expected '=' after #"+utoa(id32)+", found ")
 			return
 		}
-		if q, e = skipSpace(data, q+1); e != nil {
-			e.id = id32
-			c.err = e
-			return
+		q++
+		if q < n && !isAlpha(data[q]) {
+			if q, e = skipSpace(data, q); e != nil {
+				e.id = id32
+				c.err = e
+				return
+			}
 		}
 		// TYPE( or ( for a complex instance
 		var t uint16
