@@ -6,8 +6,9 @@ import (
 	"swaygate/checks/effective"
 )
 
-// A sway column whose top joint meets two beams with far ends rigidly
-// connected to a column and pinned, on a pinned footing, in AS 4100 practice:
+// A sway column on a pinned footing, in AS 4100 practice. Its top joint
+// joins the column above and two beams: one whose far end is rigidly
+// connected to a column, one whose far end is pinned (invented sizes):
 // γ = 2·(143/4) / (296/8·1.0 + 296/6·0.5) = 1.159 (AS 4100 4.6.3.3).
 func Example() {
 	const e = 200000.0 // MPa
