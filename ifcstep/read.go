@@ -14,9 +14,14 @@ import (
 )
 
 // ReadFile reads a model from disk, plain STEP, gzip (detected by its magic
-// bytes) or a zip archive (.ifczip) holding one .ifc entry, and parses it.
-// The file is read whole, bounded by Limits.MaxFileSize (of the plain text).
-// Errors are *Error for the content and wrapped os errors for I/O.
+// bytes) or a zip archive (.ifczip) holding one .ifc entry, and parses it,
+// bounded by Limits.MaxFileSize (of the plain text). Errors are *Error for
+// the content and wrapped os errors for I/O.
+//
+// A large plain file is memory-mapped (on Linux) rather than read: it must
+// not be truncated or rewritten while the File is in use, and the mapping is
+// released once the File, its Instances and Values are no longer reachable.
+// Slices returned by Value.Raw are valid only while one of those is.
 func ReadFile(name string, opt Options) (*File, error) {
 	lim := opt.Limits.withDefaults()
 	fh, err := os.Open(name)
@@ -27,6 +32,9 @@ func ReadFile(name string, opt Options) (*File, error) {
 	st, err := fh.Stat()
 	if err != nil {
 		return nil, fmt.Errorf("ifcstep: %w", err)
+	}
+	if !st.Mode().IsRegular() { // a pipe or a device: read as a stream
+		return readStream(fh, name, opt, lim)
 	}
 	var magic [4]byte
 	n, _ := io.ReadFull(fh, magic[:])
@@ -45,6 +53,15 @@ func ReadFile(name string, opt Options) (*File, error) {
 	}
 	if st.Size() > lim.MaxFileSize {
 		return nil, limitErr(name, lim.MaxFileSize)
+	}
+	if data, ok := mapFile(fh, st.Size()); ok {
+		f, err := Parse(data, name, opt)
+		if err != nil {
+			unmap(data)
+			return nil, err
+		}
+		unmapWhenUnreachable(f, data)
+		return f, nil
 	}
 	data := make([]byte, st.Size())
 	if _, err := io.ReadFull(fh, data); err != nil {

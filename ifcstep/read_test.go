@@ -7,7 +7,11 @@ import (
 	"errors"
 	"os"
 	"path/filepath"
+	"runtime"
+	"syscall"
 	"testing"
+
+	"swaygate/internal/ifcgen"
 )
 
 func TestReadFormats(t *testing.T) {
@@ -72,5 +76,68 @@ func TestReadFormats(t *testing.T) {
 	}
 	if _, err := ReadFile(filepath.Join(dir, "missing.ifc"), Options{}); err == nil {
 		t.Error("missing file: want error")
+	}
+}
+
+// A plain file above mmapMin is mapped; the result equals a parse of the
+// bytes read, and the mapping is released after the File is dropped.
+func TestReadFileMapped(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "big.ifc")
+	fh, err := os.Create(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := ifcgen.Write(fh, ifcgen.Options{Columns: 60, Storeys: 3, TargetBytes: 5 << 20}); err != nil {
+		t.Fatal(err)
+	}
+	fh.Close()
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := Parse(data, path, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for range 3 {
+		got, err := ReadFile(path, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if d := sameIndex(want, got); d != "" {
+			t.Fatal(d)
+		}
+		in := got.ByType("IFCBUILDINGELEMENTPROXY")[0]
+		name, err := in.Attr(2).Text()
+		if err != nil || name == "" {
+			t.Fatalf("Text = %q, %v", name, err)
+		}
+		got = nil
+		runtime.GC()
+		if s, _ := in.Attr(2).Text(); s != name { // in keeps the File, and so the mapping, alive
+			t.Fatalf("after GC: %q", s)
+		}
+	}
+	runtime.GC()
+	runtime.GC()
+}
+
+// A named pipe is read as a stream.
+func TestReadFilePipe(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "pipe.ifc")
+	if err := syscall.Mkfifo(path, 0o600); err != nil {
+		t.Skipf("no fifo: %v", err)
+	}
+	go func() {
+		w, err := os.OpenFile(path, os.O_WRONLY, 0)
+		if err != nil {
+			return
+		}
+		w.Write([]byte(doc("#1=IFCX(1);\n")))
+		w.Close()
+	}()
+	f, err := ReadFile(path, Options{})
+	if err != nil || f.Len() != 1 {
+		t.Fatalf("ReadFile = %v, %v", f, err)
 	}
 }

@@ -49,8 +49,9 @@ const flagRecord = 1
 // Kind returns the kind of the value.
 func (v Value) Kind() Kind { return v.kind }
 
-// Raw returns the value's bytes as written (a slice of the file's data; do
-// not modify it).
+// Raw returns the value's bytes as written: a slice of the file's data, not
+// to be modified, and valid while the File (or an Instance or Value of it)
+// is reachable, since a memory-mapped file is unmapped after that.
 func (v Value) Raw() []byte {
 	if v.f == nil {
 		return nil

@@ -1,0 +1,35 @@
+//go:build linux
+
+package ifcstep
+
+import (
+	"os"
+	"runtime"
+	"syscall"
+)
+
+// mmapMin is the size from which ReadFile maps a plain file instead of
+// reading it: mapping avoids copying the file (about 13 ms for 32 MiB, a
+// third of a scan) and its pages stay shared with the page cache.
+const mmapMin = 4 << 20
+
+// mapFile maps fh read-only. ok is false when the file cannot be mapped; the
+// caller then reads it.
+func mapFile(fh *os.File, size int64) (data []byte, ok bool) {
+	if size < mmapMin || int64(int(size)) != size {
+		return nil, false
+	}
+	data, err := syscall.Mmap(int(fh.Fd()), 0, int(size), syscall.PROT_READ, syscall.MAP_SHARED|syscall.MAP_POPULATE)
+	if err != nil {
+		return nil, false
+	}
+	return data, true
+}
+
+// unmapWhenUnreachable releases the mapping of f's data once f can no longer
+// be reached. Instances and Values hold f, so the data outlives them.
+func unmapWhenUnreachable(f *File, data []byte) {
+	runtime.AddCleanup(f, func(b []byte) { _ = syscall.Munmap(b) }, data)
+}
+
+func unmap(data []byte) { _ = syscall.Munmap(data) }
