@@ -22,6 +22,31 @@
 // along Axis (made perpendicular to x), y = z × x; Iy is the second moment
 // about y.
 //
+// # Filling a Model from IFC
+//
+// The types follow the structural analysis domain so that a reader can
+// fill them directly:
+//
+//   - IfcStructuralPointConnection → Node: Pos from its vertex;
+//     AppliedCondition → Support; ConditionCoordinateSystem → Support.Axes.
+//   - IfcBoundaryNodeCondition → Support: a stiffness component that is
+//     TRUE is Fixed, FALSE or absent is free, a stiffness measure goes to
+//     Stiffness (converted to N/mm or N·mm/rad).
+//   - IfcStructuralCurveMember → Member: its Axis attribute → Axis; the
+//     profile's area, MomentOfInertiaY/Z and TorsionalConstantX → A, Iy,
+//     Iz, J; the material's moduli → E, G.
+//   - IfcRelConnectsStructuralMember → EndCondition of the member end at
+//     that connection: a component of its AppliedCondition that is FALSE
+//     is Released, one with a stiffness value is Released with that
+//     Stiffness. Releases are in the member's local axes; a
+//     ConditionCoordinateSystem that differs from them must be resolved by
+//     the reader. IfcRelConnectsWithEccentricity's
+//     IfcConnectionPointEccentricity → Offset, as a global vector.
+//   - IfcStructuralAnalysisModel with PredefinedType IN_PLANE_LOADING_2D →
+//     Plane = OrientationOf2DPlane (its X–Y plane is the plane of analysis).
+//   - Member axial forces of a combination's results → Combination, with
+//     the sign turned to compression positive.
+//
 // # Method
 //
 // Each member carrying axial force in any combination is divided into

@@ -39,11 +39,11 @@ func ExampleAnalyze() {
 	md := b.Modes[0]
 	fmt.Printf("lambda_c = %.3f (%s)\n", b.Lambda, b.Status)
 	fmt.Printf("ke of the left column = %.4f\n", b.Ke[0][0])
-	fmt.Printf("sway of B = %.3f, members driving the mode: %v\n", md.Nodes[1][0], md.TopMembers(2))
+	fmt.Printf("sway of B = %.3f, shares of the mode: %.2f\n", md.Nodes[1][0], md.Share)
 	fmt.Println("ke of the beam known:", !math.IsNaN(b.Ke[1][0]))
 	// Output:
 	// lambda_c = 18.448 (buckles)
 	// ke of the left column = 1.1565
-	// sway of B = 1.000, members driving the mode: [0 2]
+	// sway of B = 1.000, shares of the mode: [0.50 0.00 0.50]
 	// ke of the beam known: false
 }
