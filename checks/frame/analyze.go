@@ -32,7 +32,7 @@ func Analyze(m *Model, opt Options) (*Result, error) {
 			}
 			note += s
 		}
-		if ms.nAuto > len(ms.restraint) {
+		if ms.moreAuto {
 			note += "; …"
 		}
 		res.Notes = append(res.Notes, note)
@@ -112,11 +112,13 @@ func (sys *system) buckle(m *Model, ci int, f *factor, method Eigen, o Options) 
 	}
 	if !compressed {
 		b.Status = NoCompression
+		b.Ke = memberKe(m, c.Compression, b.Lambda, sys.ms)
 		return b, nil
 	}
 	b.Status = NoPositive
 	b.NegativeLambda = math.Inf(-1)
 	if sys.n == 0 {
+		b.Ke = memberKe(m, c.Compression, b.Lambda, sys.ms)
 		return b, nil
 	}
 	sys.assembleG(m, c.Compression, o.Torsion)

@@ -70,9 +70,19 @@ func TestNoBuckling(t *testing.T) {
 			if b.Status != NoCompression || !math.IsInf(b.Lambda, 1) || len(b.Modes) != 0 {
 				t.Errorf("%s: status %v λ %g modes %d; want no-compression, +Inf, none", b.Combination, b.Status, b.Lambda, len(b.Modes))
 			}
+			if len(b.Ke) != 1 || !math.IsNaN(b.Ke[0][0]) || !math.IsNaN(b.Ke[0][1]) {
+				t.Errorf("%s: Ke %v; want NaN for the one member", b.Combination, b.Ke)
+			}
 		}
 		if r.Governing != -1 || !math.IsInf(r.Lambda, 1) {
 			t.Errorf("governing %d λ %g; want -1, +Inf", r.Governing, r.Lambda)
+		}
+	})
+	t.Run("everything restrained", func(t *testing.T) {
+		r := analyze(t, strut(l, i, 1e5, allFixed, allFixed, 1), Options{})
+		b := r.Combinations[0]
+		if r.Stats.DOF != 0 || b.Status != NoPositive || !math.IsInf(b.Lambda, 1) || len(b.Ke) != 1 {
+			t.Errorf("DOF %d status %v λ %g Ke %v; want 0 unknowns, no-positive-buckling, +Inf", r.Stats.DOF, b.Status, b.Lambda, b.Ke)
 		}
 	})
 	t.Run("compression held by supports, tension cantilever", func(t *testing.T) {

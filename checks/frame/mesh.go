@@ -38,7 +38,8 @@ type mesh struct {
 	group     []int32 // per slot: the point, or len(points) + pseudo group
 	pseudo    []pseudoSlot
 	nGroups   int
-	restraint []string // slots restrained for lack of stiffness, for the notes
+	restraint []string // points with slots restrained for lack of stiffness, for the notes
+	moreAuto  bool     // more such points than listed
 	nAuto     int
 }
 
@@ -381,7 +382,11 @@ func (ms *mesh) restrainUnstiffened(m *Model) {
 				names = append(names, dofName(d))
 			}
 		}
-		if names == nil || len(ms.restraint) >= maxListed {
+		if names == nil {
+			continue
+		}
+		if len(ms.restraint) >= maxListed {
+			ms.moreAuto = true
 			continue
 		}
 		pt := &ms.points[p]
