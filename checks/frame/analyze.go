@@ -287,8 +287,8 @@ func memberKe(m *Model, p []float64, lambda float64, ms *mesh) [][2]float64 {
 		mb := &m.Members[i]
 		l := m.Nodes[mb.Nodes[1]].Pos.sub(m.Nodes[mb.Nodes[0]].Pos).norm()
 		ke[i] = [2]float64{
-			EffectiveLength(mb.E, mb.Iy, l, p[i], lambda),
-			EffectiveLength(mb.E, mb.Iz, l, p[i], lambda),
+			EffectiveLengthFactor(mb.E, mb.Iy, l, p[i], lambda),
+			EffectiveLengthFactor(mb.E, mb.Iz, l, p[i], lambda),
 		}
 		if ms.plane {
 			pa := m.Nodes[mb.Nodes[0]].Pos.add(mb.Ends[0].Offset)
@@ -304,7 +304,7 @@ func memberKe(m *Model, p []float64, lambda float64, ms *mesh) [][2]float64 {
 	return ke
 }
 
-// EffectiveLength returns the effective length factor of a member of
+// EffectiveLengthFactor returns the effective length factor of a member of
 // modulus e (MPa), second moment i (mm⁴) and length l (mm) that buckles
 // with the frame at load factor lambda under compression nStar (N):
 //
@@ -313,7 +313,7 @@ func memberKe(m *Model, p []float64, lambda float64, ms *mesh) [][2]float64 {
 // so that π²EI/(ke·L)² = λ·N*. It is NaN when nStar ≤ 0 or lambda is not
 // positive and finite. For members far from critical the value is large
 // and means only that the member is not what buckles.
-func EffectiveLength(e, i, l, nStar, lambda float64) float64 {
+func EffectiveLengthFactor(e, i, l, nStar, lambda float64) float64 {
 	if !(nStar > 0) || !(lambda > 0) || math.IsInf(lambda, 1) || !(l > 0) {
 		return math.NaN()
 	}

@@ -315,3 +315,20 @@ func TestTorsion(t *testing.T) {
 		t.Errorf("λ = %.6g; want %.6g", r.Lambda, want)
 	}
 }
+
+func TestEffectiveLengthFactor(t *testing.T) {
+	const e, i, l = testE, 1e8, 4000.0
+	// π²EI/(ke·L)² = λ·N*. source: standards-notes §1.2 [C], AS 4100 4.6.2 Nom = π²EI/(ke·l)².
+	for _, tt := range []struct{ n, lambda float64 }{{1e5, 12.3}, {2.5e6, 1.7}} {
+		ke := EffectiveLengthFactor(e, i, l, tt.n, tt.lambda)
+		nom := math.Pi * math.Pi * e * i / (ke * l * ke * l)
+		if relErr(nom, tt.lambda*tt.n) > 1e-12 {
+			t.Errorf("N* %g λ %g: ke %g gives Nom %g; want %g", tt.n, tt.lambda, ke, nom, tt.lambda*tt.n)
+		}
+	}
+	for _, tt := range []struct{ n, lambda float64 }{{0, 2}, {-1e5, 2}, {1e5, math.Inf(1)}, {1e5, -3}, {1e5, math.NaN()}} {
+		if ke := EffectiveLengthFactor(e, i, l, tt.n, tt.lambda); !math.IsNaN(ke) {
+			t.Errorf("N* %g λ %g: ke %g; want NaN", tt.n, tt.lambda, ke)
+		}
+	}
+}

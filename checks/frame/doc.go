@@ -76,7 +76,7 @@
 // the frame), a few modes with their node translations normalised to a
 // largest value of 1 and each member's share of the mode's second-order
 // work (Mode.Share, Mode.TopMembers, Storeys), and each member's effective
-// length factor implied by λ (EffectiveLength): ke = π·sqrt(E·I/(λ·N*))/L.
+// length factor implied by λ (EffectiveLengthFactor): ke = π·sqrt(E·I/(λ·N*))/L.
 //
 // # Not represented
 //
