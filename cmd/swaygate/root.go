@@ -30,5 +30,6 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 	})
 	root.AddCommand(newScanCmd())
 	root.AddCommand(newGenerateCmd())
+	root.AddCommand(newServeCmd())
 	return root
 }
