@@ -67,3 +67,21 @@ func KNm(nmm float64) float64 { return nmm / 1e6 }
 func known(x float64) bool { return !math.IsNaN(x) }
 
 func finitePos(x float64) bool { return x > 0 && !math.IsInf(x, 1) }
+
+// SplitMoment returns the design moment (N·mm) of separate no-translation
+// (nt) and lateral-translation (lt) moments amplified by fnt and flt, as
+// fnt·Mnt + flt·Mlt taken at each place both are known: each end, and, when
+// the source gives a peak of either part, the peak of that part together
+// with the largest magnitude of the other along the member (a safe bound,
+// since the two peaks need not be at the same place). The caller names the
+// clause (AISC 360 A-8-1; EN 1993-1-1 5.2.2(5)B amplifies the sway part
+// only, fnt = 1).
+func SplitMoment(sp *SplitMoments, fnt, flt float64) float64 {
+	m := math.Max(math.Abs(fnt*sp.NtStart+flt*sp.LtStart), math.Abs(fnt*sp.NtEnd+flt*sp.LtEnd))
+	if sp.NtPeak != 0 || sp.LtPeak != 0 {
+		nt := math.Max(math.Abs(sp.NtPeak), math.Max(math.Abs(sp.NtStart), math.Abs(sp.NtEnd)))
+		lt := math.Max(math.Abs(sp.LtPeak), math.Max(math.Abs(sp.LtStart), math.Abs(sp.LtEnd)))
+		m = math.Max(m, math.Abs(fnt)*nt+math.Abs(flt)*lt)
+	}
+	return m
+}

@@ -93,8 +93,16 @@ type StoreyResult struct {
 	SwayMembers    int
 	LeaningMembers int
 	SumNStar       Num // N, all columns
-	Complete       bool
-	Reasons        []Reason
+	// SumNStarSway is Σ N* over the storey's sway columns (N, tension counts
+	// 0): the load on the lateral system (AISC's P_mf, A-8-8).
+	SumNStarSway Num
+	// The drift inputs used when the storey's shear and drift are given
+	// (Model.StoreyData), NaN otherwise: storey shear (N), first-order
+	// inter-storey drift (mm), storey height (mm) and vertical load (N; the
+	// given one, else SumNStar). A rule set traces its drift form from them.
+	Shear, Drift, Height, Vertical Num
+	Complete                       bool
+	Reasons                        []Reason
 }
 
 // Element is one member's result.

@@ -292,7 +292,9 @@ func (p *StoreyProvider) sums(gd int32, c int, sr *StoreyResult, drift map[strin
 		s.SumNomsNOverL += ax.Nom * pos / l
 	}
 	sr.SumNStar = Num(s.SumN)
+	sr.SumNStarSway = Num(s.SumNSway)
 	sr.LambdaC, sr.FormA, sr.FormB, sr.FormDrift = Null, Null, Null, Null
+	sr.Shear, sr.Drift, sr.Height, sr.Vertical = Null, Null, Null, Null
 	if missing+unknown+noLength > 0 {
 		ms := sc.Model.Members
 		var msg string
@@ -323,6 +325,7 @@ func (p *StoreyProvider) sums(gd int32, c int, sr *StoreyResult, drift map[strin
 		if finitePos(row.VerticalN) {
 			s.Vertical = row.VerticalN
 		}
+		sr.Shear, sr.Drift, sr.Height, sr.Vertical = Num(s.Shear), Num(s.Drift), Num(s.Height), Num(s.Vertical)
 	}
 	lambda, form, fd := sc.Rules.StoreyLambda(&s)
 	sr.FormA, sr.FormB = Num(s.FormA), Num(s.FormB)

@@ -9,7 +9,9 @@ import (
 	"strings"
 
 	"swaygate/checks"
+	"swaygate/checks/aisc360"
 	"swaygate/checks/as4100"
+	"swaygate/checks/en1993"
 	"swaygate/checks/nzs3404"
 )
 
@@ -17,7 +19,7 @@ import (
 const Default = "as4100"
 
 // Names returns the known standards' names, sorted.
-func Names() []string { return []string{"as4100", "nzs3404"} }
+func Names() []string { return []string{"aisc360", "as4100", "en1993", "nzs3404"} }
 
 // Lookup returns the rule set of the named standard ("" is Default). Names
 // are case-insensitive.
@@ -27,6 +29,10 @@ func Lookup(name string) (checks.RuleSet, error) {
 		return as4100.New(), nil
 	case "nzs3404":
 		return nzs3404.New(), nil
+	case "en1993":
+		return en1993.New(), nil
+	case "aisc360":
+		return aisc360.New(), nil
 	}
 	return nil, fmt.Errorf("standards: unknown standard %q (known: %s)", name, strings.Join(Names(), ", "))
 }
