@@ -199,6 +199,11 @@ type AxisMoments struct {
 	// InteriorUnknown: a transverse load acts but only end moments are known,
 	// so the peak cannot be known (interior-moment-unknown).
 	InteriorUnknown bool
+	// CurvatureUnknown: the relative sign of the end moments is unknown (the
+	// sign convention of the analysis results could not be told from them,
+	// sign-convention-ambiguous), so single or double curvature cannot be
+	// told: beta_m = -1 (conservative). Start and End are then as written.
+	CurvatureUnknown bool
 	// Split holds separate no-translation and lateral-translation moments when
 	// the source gives them (AISC B1·Mnt + B2·Mlt); nil otherwise.
 	Split *SplitMoments

@@ -1,0 +1,158 @@
+package main
+
+import (
+	"bufio"
+	"strings"
+	"time"
+
+	"github.com/google/uuid"
+	"github.com/spf13/cobra"
+
+	"swaygate/checks"
+	"swaygate/ifcstep/ifc"
+	"swaygate/reports"
+)
+
+// membersFlags are the flags of `swaygate members`.
+type membersFlags struct {
+	actions    string
+	include    []string
+	format     string
+	loadCases  bool
+	convention string
+	units      string
+}
+
+func newMembersCmd() *cobra.Command {
+	var fl membersFlags
+	cmd := &cobra.Command{
+		Use:   "members MODEL [--actions FILE] [--include member:POST,STRUT] [--format json|text]",
+		Short: "List the columns extracted from an IFC model: section, length, material, restraint, actions and problems",
+		Long: "members reads an IFC model and lists every steel column with what was found for it\n" +
+			"(section, length, material, restraint per axis and the design actions of each load\n" +
+			"combination) and its problems. Columns that are not steel are listed as skipped.\n" +
+			"It exits 0 whatever the members' problems; 2 when the model or the actions file\n" +
+			"cannot be read.",
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opt, err := fl.options()
+			if err != nil {
+				return err
+			}
+			switch fl.format {
+			case "json", "text":
+			default:
+				return &exitError{code: exitUsage, msg: "swaygate members: unknown --format " + quoteArg(fl.format) + " (want json or text)"}
+			}
+			lm, err := loadModel(args[0], fl.actions, opt)
+			if err != nil {
+				return err
+			}
+			run := reports.Run{
+				RunID:       uuid.NewString(),
+				CreatedAt:   time.Now(),
+				ToolVersion: version,
+				Model:       lm.Info,
+				Units:       fl.units,
+			}
+			listing := withListingProblems(lm.Model)
+			w := bufio.NewWriterSize(cmd.OutOrStdout(), 1<<16)
+			if fl.format == "json" {
+				err = reports.WriteMembersJSON(w, listing, run)
+			} else {
+				err = reports.WriteMembersText(w, listing, run)
+			}
+			if ferr := w.Flush(); err == nil {
+				err = ferr
+			}
+			if err != nil {
+				return &exitError{code: exitUsage, msg: "swaygate members: " + err.Error()}
+			}
+			return nil
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&fl.actions, "actions", "", "side-car design actions (CSV or JSON, keyed by GlobalId)")
+	f.StringArrayVar(&fl.include, "include", nil, "also include IfcMember of these predefined types, e.g. member:POST,STRUT (member:* for all)")
+	f.StringVar(&fl.format, "format", "text", "output format: json or text")
+	f.BoolVar(&fl.loadCases, "load-cases", false, "also check the results of bare (unfactored) load cases")
+	f.StringVar(&fl.convention, "sign-convention", "auto", "sign convention of the model's member results: auto, section-forces or end-forces")
+	f.StringVar(&fl.units, "units", "si", "display units of the text format: si or us")
+	return cmd
+}
+
+// options turns the flags into extraction options.
+func (fl *membersFlags) options() (ifc.Options, error) {
+	var opt ifc.Options
+	for _, inc := range fl.include {
+		kind, types, ok := strings.Cut(inc, ":")
+		if !ok || !strings.EqualFold(kind, "member") || types == "" {
+			return opt, &exitError{code: exitUsage, msg: "swaygate: --include " + quoteArg(inc) + ": want member:TYPE[,TYPE...], e.g. member:POST,STRUT"}
+		}
+		for _, t := range strings.Split(types, ",") {
+			if t = strings.ToUpper(strings.TrimSpace(t)); t != "" {
+				opt.MemberTypes = append(opt.MemberTypes, t)
+			}
+		}
+	}
+	c, err := ifc.ParseSignConvention(fl.convention)
+	if err != nil {
+		return opt, &exitError{code: exitUsage, msg: "swaygate: --sign-convention: " + strings.TrimPrefix(err.Error(), "ifc: ")}
+	}
+	opt.Convention = c
+	opt.LoadCases = fl.loadCases
+	return opt, nil
+}
+
+func quoteArg(s string) string { return "\"" + s + "\"" }
+
+// withListingProblems returns a copy of m whose members also carry the
+// problems the check engine would find from the data alone (missing section,
+// length, restraint per axis, actions per combination), so that the listing
+// shows every gap. The model itself is left for the engine, which finds these
+// on its own.
+func withListingProblems(m *checks.Model) *checks.Model {
+	out := *m
+	out.Members = make([]checks.Member, len(m.Members))
+	for i := range m.Members {
+		mb := m.Members[i]
+		ps := append([]checks.Reason(nil), mb.Problems...)
+		has := func(code, axis, combination string) bool {
+			for _, p := range ps {
+				if p.Code == code && (p.Axis == "" || axis == "" || p.Axis == axis) && (p.Combination == "" || p.Combination == combination) {
+					return true
+				}
+			}
+			return false
+		}
+		if mb.Section == nil && !has(checks.CodeMissingSection, "", "") && !has(checks.CodeUnsupportedProfile, "", "") {
+			ps = append(ps, checks.Reason{Code: checks.CodeMissingSection, Message: "no section properties"})
+		}
+		if !(mb.Length > 0) && !has(checks.CodeMissingLength, "", "") {
+			ps = append(ps, checks.Reason{Code: checks.CodeMissingLength, Message: "no member length"})
+		}
+		for _, a := range checks.Axes {
+			in := &mb.Axes[a]
+			if (in.Restraint == checks.RestraintUnknown || in.Ke == 0) && !has(checks.CodeMissingRestraint, a.String(), "") &&
+				!has(checks.CodeInvalidRestraint, a.String(), "") {
+				ps = append(ps, checks.Reason{Code: checks.CodeMissingRestraint, Axis: a.String(),
+					Message: "no restraint data for this axis (Swaygate_ColumnDesign: sway or braced, and ke)"})
+			}
+		}
+		for _, c := range m.Combinations {
+			found := false
+			for k := range mb.Actions {
+				if mb.Actions[k].Combination == c {
+					found = true
+					break
+				}
+			}
+			if !found && !has(checks.CodeMissingActions, "", c) {
+				ps = append(ps, checks.Reason{Code: checks.CodeMissingActions, Combination: c, Message: "no design actions for this combination"})
+			}
+		}
+		mb.Problems = ps
+		out.Members[i] = mb
+	}
+	return &out
+}
