@@ -5,6 +5,8 @@ import (
 	"math/rand/v2"
 	"sort"
 
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
 )
@@ -103,10 +105,15 @@ func lanczos(op *operator, n, nev int, tol float64) (eigenpairs, error) {
 	mMax := max(2*nev+20, 40)
 	mMax = min(mMax, n)
 	keep := min(nev+6, mMax/2)
-	v := make([][]float64, mMax+1) // v[mMax] is the residual direction
+	// The basis is one block, row i the vector v[i], so that
+	// orthogonalisation is two matrix–vector products. v[mMax] is the
+	// residual direction.
+	block := make([]float64, (mMax+1)*n)
+	v := make([][]float64, mMax+1)
 	for i := range v {
-		v[i] = make([]float64, n)
+		v[i] = block[i*n : (i+1)*n : (i+1)*n]
 	}
+	coef := make([]float64, mMax)
 	h := make([]float64, mMax*mMax)
 	w := make([]float64, n)
 	rnd := rand.New(rand.NewPCG(1, 2))
@@ -169,12 +176,24 @@ func lanczos(op *operator, n, nev int, tol float64) (eigenpairs, error) {
 		for j := k; j < mMax; j++ {
 			op.apply(w, v[j])
 			ep.steps++
+			// Classical Gram–Schmidt against the whole basis, repeated
+			// once when the first pass cancels much of w ("twice is
+			// enough", Parlett).
+			basis := blas64.General{Rows: j + 1, Cols: n, Stride: n, Data: block}
+			wv := blas64.Vector{N: n, Inc: 1, Data: w}
+			cv := blas64.Vector{N: j + 1, Inc: 1, Data: coef[:j+1]}
+			before := floats.Norm(w, 2)
 			for pass := 0; pass < 2; pass++ {
+				blas64.Gemv(blas.NoTrans, 1, basis, wv, 0, cv)
+				blas64.Gemv(blas.Trans, -1, basis, cv, 1, wv)
 				for i := 0; i <= j; i++ {
-					c := floats.Dot(v[i], w)
-					h[i*mMax+j] += c
-					floats.AddScaled(w, -c, v[i])
+					h[i*mMax+j] += coef[i]
 				}
+				after := floats.Norm(w, 2)
+				if after > 0.7*before {
+					break
+				}
+				before = after
 			}
 			for i := 0; i < j; i++ {
 				h[j*mMax+i] = h[i*mMax+j]
