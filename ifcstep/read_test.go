@@ -8,7 +8,6 @@ import (
 	"os"
 	"path/filepath"
 	"runtime"
-	"syscall"
 	"testing"
 
 	"swaygate/internal/ifcgen"
@@ -120,24 +119,4 @@ func TestReadFileMapped(t *testing.T) {
 	}
 	runtime.GC()
 	runtime.GC()
-}
-
-// A named pipe is read as a stream.
-func TestReadFilePipe(t *testing.T) {
-	path := filepath.Join(t.TempDir(), "pipe.ifc")
-	if err := syscall.Mkfifo(path, 0o600); err != nil {
-		t.Skipf("no fifo: %v", err)
-	}
-	go func() {
-		w, err := os.OpenFile(path, os.O_WRONLY, 0)
-		if err != nil {
-			return
-		}
-		w.Write([]byte(doc("#1=IFCX(1);\n")))
-		w.Close()
-	}()
-	f, err := ReadFile(path, Options{})
-	if err != nil || f.Len() != 1 {
-		t.Fatalf("ReadFile = %v, %v", f, err)
-	}
 }
