@@ -11,6 +11,8 @@ import (
 // connected to a column, one whose far end is pinned (invented sizes):
 // γ = 2·(143/4) / (296/8·1.0 + 296/6·0.5) = 1.159 (AS 4100 4.6.3.3).
 func Example() {
+	// source: standards-notes §1.2 [M] βe (Table 4.6.3.4) and [L] footing γ = 10 (SDH p.53);
+	// standards-notes §1.2 [M] Figure 4.6.3.2 sway fixed–pinned ke = 2.2.
 	const e = 200000.0 // MPa
 	column := effective.Column{E: e, I: 143e6, L: 4000}
 	beams := []effective.Beam{

@@ -12,6 +12,7 @@ import (
 // carrying 500 kN: the sway mode governs with K = 1.1565 (Timoshenko &
 // Gere; standards-notes §5): λ = 7.3792·EI/(h²·P) = 18.448.
 func ExampleAnalyze() {
+	// source: standards-notes §5 [D]: portal with R = 1, fixed bases, Pcr = 7.3792·EI/h², K = 1.1565.
 	const h, i = 4000.0, 1e8 // mm, mm⁴
 	fixed := &frame.Support{Fixed: [6]bool{true, true, true, true, true, true}}
 	member := func(id string, a, b int) frame.Member {
