@@ -1,15 +1,26 @@
 // Package pipeline runs one check from a model file to a report: read and
 // index the STEP file, extract the members (with optional side-car actions),
 // run the chosen rule set, and evaluate the gate. The CLI and the HTTP
-// service both call Check, so that they give the same results.
+// service both call it, so that they give the same results.
 package pipeline
 
 import (
 	"context"
-	"errors"
+	"crypto/sha256"
+	"encoding/hex"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
 	"time"
 
 	"swaygate/checks"
+	"swaygate/checks/effective"
+	"swaygate/checks/standards"
+	"swaygate/ifcstep"
+	"swaygate/ifcstep/ifc"
+	"swaygate/ifcstep/sidecar"
 	"swaygate/reports"
 )
 
@@ -22,15 +33,19 @@ type Request struct {
 	Name string
 	// ActionsPath is an optional side-car actions file (CSV or JSON).
 	ActionsPath string
-	// ActionsName is the side-car's display name in messages.
+	// ActionsName is the side-car's display name in messages (default: the
+	// base name of ActionsPath).
 	ActionsName string
 
 	Options checks.Options
 	// Include lists IfcMember predefined types to check as well as columns,
-	// e.g. ["POST", "STRUT"].
+	// e.g. ["POST", "STRUT"]; "*" includes every IfcMember.
 	Include []string
 	// LoadCases: also check results of unfactored load cases.
 	LoadCases bool
+	// Convention declares the sign convention of the model's member results:
+	// "auto" (default), "section-forces" or "end-forces".
+	Convention string
 
 	Gate    string // "fail" (default) or "needs-analysis"
 	Project string
@@ -39,21 +54,204 @@ type Request struct {
 	RunID       string
 	Now         func() time.Time // default time.Now
 	ToolVersion string
+	// Limits bound the STEP reader (zero: the reader's defaults).
+	Limits ifcstep.Limits
 }
 
 // Result is a finished check.
 type Result struct {
 	Report *checks.Report
 	Run    reports.Run
+	// Model is what the extraction produced (the report points into it).
+	Model *checks.Model
 }
 
-// ErrNotImplemented is returned until the extraction is wired in.
-var ErrNotImplemented = errors.New("pipeline: not implemented yet")
+// Loaded is a read model and the members extracted from it.
+type Loaded struct {
+	File  *ifcstep.File
+	Model *checks.Model
+	Info  reports.ModelInfo
+}
 
-// Check runs req. Errors the user caused (a file that is not STEP, a bad
-// side-car, invalid options) are returned as positioned errors of the
-// packages that found them (*ifcstep.Error, *sidecar.Error) or wrap
-// checks.ErrOption; ctx cancels a long run.
+// Load reads the model (and side-car) of req and extracts its members,
+// without checking them. The model's SHA-256 is computed on another
+// goroutine while it is parsed.
+func Load(ctx context.Context, req Request) (*Loaded, error) {
+	name := req.Name
+	if name == "" {
+		name = filepath.Base(req.ModelPath)
+	}
+	type hashed struct {
+		sum string
+		err error
+	}
+	hc := make(chan hashed, 1)
+	go func() {
+		sum, err := fileSHA256(req.ModelPath)
+		hc <- hashed{sum, err}
+	}()
+
+	opt := ifc.Options{MemberTypes: req.Include, LoadCases: req.LoadCases, KeFamily: keFamily(req.Options.Standard)}
+	if req.Convention != "" {
+		c, err := ifc.ParseSignConvention(req.Convention)
+		if err != nil {
+			<-hc
+			return nil, &OptionError{Msg: err.Error()}
+		}
+		opt.Convention = c
+	}
+	if req.ActionsPath != "" {
+		an := req.ActionsName
+		if an == "" {
+			an = filepath.Base(req.ActionsPath)
+		}
+		fh, err := os.Open(req.ActionsPath)
+		if err != nil {
+			<-hc
+			return nil, err
+		}
+		sc, err := sidecar.Read(fh, an)
+		fh.Close()
+		if err != nil {
+			<-hc
+			return nil, err
+		}
+		opt.Actions = sc
+	}
+	if err := ctx.Err(); err != nil {
+		<-hc
+		return nil, err
+	}
+	ropt := ifcstep.Options{Limits: req.Limits}
+	if ropt.Limits == (ifcstep.Limits{}) {
+		ropt.Limits = ifcstep.DefaultLimits()
+	}
+	f, err := readModel(req.ModelPath, name, ropt)
+	h := <-hc
+	if err != nil {
+		return nil, err
+	}
+	if h.err != nil {
+		return nil, h.err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	m, err := ifc.Extract(f, opt)
+	if err != nil {
+		return nil, err
+	}
+	return &Loaded{
+		File:  f,
+		Model: m,
+		Info:  reports.ModelInfo{File: name, SHA256: h.sum, Schema: f.Family.String(), Instances: f.Len()},
+	}, nil
+}
+
+// readModel reads the model file, naming it in messages by its display name.
+func readModel(path, name string, opt ifcstep.Options) (*ifcstep.File, error) {
+	if name == filepath.Base(path) {
+		f, err := ifcstep.ReadFile(path, opt)
+		if err == nil {
+			f.Name = name
+		}
+		return f, err
+	}
+	fh, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer fh.Close()
+	return ifcstep.Read(fh, name, opt)
+}
+
+// Check runs req. Errors the user caused are returned as the positioned
+// errors of the packages that found them (*ifcstep.Error, *sidecar.Error),
+// as *OptionError, or wrap checks.ErrOption; ctx cancels a long run between
+// its stages.
 func Check(ctx context.Context, req Request) (*Result, error) {
-	return nil, ErrNotImplemented
+	opt := req.Options
+	if opt.Standard == "" {
+		opt.Standard = standards.Default
+	}
+	rs, err := standards.Lookup(opt.Standard)
+	if err != nil {
+		return nil, &OptionError{Msg: err.Error()}
+	}
+	gate := req.Gate
+	if gate == "" {
+		gate = reports.GateFail
+	}
+	if gate != reports.GateFail && gate != reports.GateNeedsAnalysis {
+		return nil, &OptionError{Msg: fmt.Sprintf("unknown gate %q (want %s or %s)", gate, reports.GateFail, reports.GateNeedsAnalysis)}
+	}
+	switch req.Units {
+	case "", reports.UnitsSI, reports.UnitsUS:
+	default:
+		return nil, &OptionError{Msg: fmt.Sprintf("unknown units %q (want si or us)", req.Units)}
+	}
+	req.Options = opt
+
+	ld, err := Load(ctx, req)
+	if err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	rep, err := checks.Run(ld.Model, rs, opt)
+	if err != nil {
+		return nil, err
+	}
+	g, err := reports.NewGate(gate, rep.Summary)
+	if err != nil {
+		return nil, &OptionError{Msg: err.Error()}
+	}
+	now := time.Now
+	if req.Now != nil {
+		now = req.Now
+	}
+	return &Result{
+		Report: rep,
+		Model:  ld.Model,
+		Run: reports.Run{
+			RunID:       req.RunID,
+			CreatedAt:   now().UTC(),
+			ToolVersion: req.ToolVersion,
+			Project:     req.Project,
+			Model:       ld.Info,
+			Gate:        g,
+			Units:       req.Units,
+		},
+	}, nil
+}
+
+// OptionError is an invalid request option (an unknown standard, gate, unit
+// system or sign convention).
+type OptionError struct{ Msg string }
+
+func (e *OptionError) Error() string { return "swaygate: " + e.Msg }
+
+// Unwrap makes an OptionError match checks.ErrOption.
+func (e *OptionError) Unwrap() error { return checks.ErrOption }
+
+// keFamily chooses the idealised ke table of the standard's family.
+func keFamily(standard string) effective.Family {
+	if strings.HasPrefix(standard, "aisc") {
+		return effective.AISC
+	}
+	return effective.AS4100
+}
+
+func fileSHA256(path string) (string, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return "", err
+	}
+	defer f.Close()
+	h := sha256.New()
+	if _, err := io.Copy(h, f); err != nil {
+		return "", err
+	}
+	return hex.EncodeToString(h.Sum(nil)), nil
 }
