@@ -184,7 +184,7 @@ func TestFourStandardsNumbers(t *testing.T) {
 	near("AS L1 ULS-2 (drift)", as.Storeys[1].LambdaC, 3.2)                            // source: AS 4100 4.4.2.3(a)(i) [D]
 	near("EN L1 ULS-2 (drift)", en.Storeys[1].LambdaC, 3.2)                            // source: EN 1993-1-1 5.2.1(4)B [D]
 	near("AISC L1 ULS-2 (R_M drift)", us.Storeys[1].LambdaC, 3.2*(1-0.15*1600.0/2800)) // source: AISC 360 A-8-7, A-8-8 [D]
-	near("L2 (form A)", en.Storeys[2].LambdaC, 4.5)                                    // [D] 5895/1310
+	near("L2 (form A)", en.Storeys[2].LambdaC, 4.5)                                    // source: design §5.3 (form A) [D]: 5895/1310
 	c1 := &us.Elements[0].Combinations[1].Axes[checks.Major]
 	near("AISC C1 ULS-2 B2", c1.DeltaS, 1/(1-1/(3.2*(1-0.15*1600.0/2800)))) // source: AISC 360 A-8-6 [D]
 	b5 := &us.Elements[5].Combinations[0].Axes[checks.Major]
