@@ -30,6 +30,7 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 	})
 	root.AddCommand(newScanCmd())
 	root.AddCommand(newGenerateCmd())
+	root.AddCommand(newCheckCmd())
 	root.AddCommand(newMembersCmd())
 	root.AddCommand(newServeCmd())
 	return root

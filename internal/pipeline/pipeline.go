@@ -8,6 +8,7 @@ import (
 	"context"
 	"crypto/sha256"
 	"encoding/hex"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -255,3 +256,7 @@ func fileSHA256(path string) (string, error) {
 	}
 	return hex.EncodeToString(h.Sum(nil)), nil
 }
+
+// ErrNotImplemented was returned before the extraction was wired in; Check
+// no longer returns it. Kept so that callers that still test for it build.
+var ErrNotImplemented = errors.New("pipeline: not implemented")
