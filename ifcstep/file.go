@@ -175,6 +175,15 @@ func (f *File) slot(id uint32) (uint32, bool) {
 	}
 }
 
+// At returns the i-th instance in file order, 0 <= i < Len(); the zero
+// Instance when i is out of range.
+func (f *File) At(i int) Instance {
+	if i < 0 || i >= len(f.ids) {
+		return Instance{}
+	}
+	return Instance{f: f, s: uint32(i)}
+}
+
 // Get returns the instance #id.
 func (f *File) Get(id uint32) (Instance, bool) {
 	s, ok := f.slot(id)

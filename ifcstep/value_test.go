@@ -185,6 +185,9 @@ func TestAttrs(t *testing.T) {
 	if vs, err := in2.Attrs(); err != nil || len(vs) != 0 || in2.NumAttrs() != 0 {
 		t.Errorf("#2: %v, %v", vs, err)
 	}
+	if f.At(0).ID() != 1 || f.At(2).ID() != 3 || f.At(3).ID() != 0 || f.At(-1).Type() != "" {
+		t.Errorf("At: %v %v %v", f.At(0), f.At(2), f.At(3))
+	}
 	in3, _ := f.Get(3)
 	if in3.NumAttrs() != 3 || !in3.Attr(0).IsUnset() || !in3.Attr(1).IsDerived() || !in3.Attr(5).IsUnset() {
 		t.Errorf("#3 attributes wrong")
