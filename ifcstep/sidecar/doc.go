@@ -47,6 +47,30 @@
 // missing-actions); a GlobalId that is not in the model is reported, not
 // ignored. The same GlobalId and combination twice is an error.
 //
+// # Storey rows (optional file, storeys.go)
+//
+// The storey shear and first-order drift of a storey, per global direction
+// and combination, feed the drift forms of the storey buckling load factor:
+// AS 4100 4.4.2.3(a)(i), EN 1993-1-1 5.2.1(4)B (alpha_cr =
+// (H_Ed/V_Ed)(h/δ_H,Ed)) and AISC 360 A-8-7 (P_e,story = R_M H L/Δ_H). They
+// are a file of their own beside the actions (ParseStoreys, ReadStoreys,
+// ReadStoreysFile), CSV with a header row:
+//
+//	storey,direction,combination,storey_shear_kN,storey_drift_mm,storey_height_mm
+//	Level 1,Y,ULS-2,112,50,4000
+//
+// or JSON, an object with a "storeys" array (or the array alone) of objects
+// with the same keys. storey is the IfcBuildingStorey's Name (or give
+// storey_key, the storey's instance reference such as "#38", when names
+// repeat); direction is X or Y, the global direction of the shear and drift;
+// the shear is the total design horizontal storey shear that produced the
+// drift, positive (for EN 1993 including the equivalent imperfection forces); the drift is the inter-storey drift in that direction (≥
+// 0); storey_height_mm is positive. The optional vertical_load_kN is the
+// storey's total design vertical load; without it the sum of the columns'
+// compression is used. A storey, direction and combination with no row takes
+// lambda_c from the storey sums of its columns (design §5.3). The same storey, direction and
+// combination twice is an error; unknown columns and keys are errors.
+//
 // # Errors
 //
 // Every error is a *Error with the file name and the line (and, for CSV, the
