@@ -113,6 +113,10 @@ func quoteArg(s string) string { return "\"" + s + "\"" }
 // on its own.
 func withListingProblems(m *checks.Model) *checks.Model {
 	out := *m
+	if len(m.Combinations) == 0 {
+		out.Warnings = append(append([]checks.Reason(nil), m.Warnings...), checks.Reason{Code: checks.CodeNoDesignCombinations,
+			Message: "the model has no design load combinations: there are no actions to check"})
+	}
 	out.Members = make([]checks.Member, len(m.Members))
 	for i := range m.Members {
 		mb := m.Members[i]
@@ -133,10 +137,25 @@ func withListingProblems(m *checks.Model) *checks.Model {
 		}
 		for _, a := range checks.Axes {
 			in := &mb.Axes[a]
-			if (in.Restraint == checks.RestraintUnknown || in.Ke == 0) && !has(checks.CodeMissingRestraint, a.String(), "") &&
-				!has(checks.CodeInvalidRestraint, a.String(), "") {
+			switch {
+			case has(checks.CodeMissingRestraint, a.String(), "") || has(checks.CodeInvalidRestraint, a.String(), ""):
+			case in.Ke < 0:
+				ps = append(ps, checks.Reason{Code: checks.CodeInvalidRestraint, Axis: a.String(), Message: "ke must be positive"})
+			case in.Restraint == checks.RestraintUnknown || in.Ke == 0:
 				ps = append(ps, checks.Reason{Code: checks.CodeMissingRestraint, Axis: a.String(),
 					Message: "no restraint data for this axis (Swaygate_ColumnDesign: sway or braced, and ke)"})
+			case in.Restraint == checks.Sway && in.Ke < 1:
+				ps = append(ps, checks.Reason{Code: checks.CodeInvalidRestraint, Axis: a.String(),
+					Message: "ke below 1 on a sway axis: a member free to sway cannot have ke < 1"})
+			}
+		}
+		for k := range mb.Actions {
+			act := &mb.Actions[k]
+			for _, a := range checks.Axes {
+				if act.Moments[a].InteriorUnknown {
+					ps = append(ps, checks.Reason{Code: checks.CodeInteriorMomentUnknown, Combination: act.Combination, Axis: a.String(),
+						Message: "a transverse load acts between the ends but only end moments are known: M*_m cannot be found"})
+				}
 			}
 		}
 		for _, c := range m.Combinations {

@@ -101,9 +101,6 @@ func (x *extractor) assignActions() {
 			ms[i].Problems = append(ms[i].Problems, checks.Reason{Code: checks.CodeMissingActions,
 				Message: "no design actions: no side-car, no analysis results of load combinations, no " + psetDesignActions})
 		}
-		if onlyCases {
-			x.warn(checks.CodeNoDesignCombinations, "the model's analysis results are for load cases only (unfactored): there are no design combinations to check", "")
-		}
 	}
 }
 

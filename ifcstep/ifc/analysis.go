@@ -90,18 +90,60 @@ func (x *extractor) memberEdge(in ifcstep.Instance) (vec, vec, bool) {
 	reps, _ := pds.Attr(pReps).List()
 	for _, rv := range reps {
 		rep, ok := x.deref(pds, rv)
-		if !ok || rep.Type() != "IFCTOPOLOGYREPRESENTATION" {
+		if !ok {
 			continue
 		}
-		items, _ := rep.Attr(pRepItems).List()
-		for _, iv := range items {
-			it, ok := x.deref(rep, iv)
+		if s, e, ok := x.repEdge(rep, identity, 0); ok {
+			return s, e, true
+		}
+	}
+	return vec{}, vec{}, false
+}
+
+// repEdge finds the first edge among a representation's items, also through
+// mapped items (whose transformation it applies).
+func (x *extractor) repEdge(rep ifcstep.Instance, tr frame, depth int) (vec, vec, bool) {
+	if depth > 4 {
+		return vec{}, vec{}, false
+	}
+	switch rep.Type() {
+	case "IFCTOPOLOGYREPRESENTATION", "IFCSHAPEREPRESENTATION":
+	default:
+		return vec{}, vec{}, false
+	}
+	items, _ := rep.Attr(pRepItems).List()
+	for _, iv := range items {
+		it, ok := x.deref(rep, iv)
+		if !ok {
+			continue
+		}
+		if it.Type() == "IFCMAPPEDITEM" {
+			src, ok := x.deref(it, it.Attr(pMapSource))
 			if !ok {
 				continue
 			}
-			if s, e, ok := x.edgePoints(it, 0); ok {
+			origin, target := identity, identity
+			if oi, ok := x.deref(src, src.Attr(pMapOrigin)); ok {
+				if origin, ok = x.readAxis2Placement(oi); !ok {
+					continue
+				}
+			}
+			if ti, ok := x.deref(it, it.Attr(pMapTarget)); ok {
+				if target, _, ok = x.transform3D(ti); !ok {
+					continue
+				}
+			}
+			mr, ok := x.deref(src, src.Attr(pMapRep))
+			if !ok {
+				continue
+			}
+			if s, e, ok := x.repEdge(mr, tr.then(target).then(origin.inverse()), depth+1); ok {
 				return s, e, true
 			}
+			continue
+		}
+		if s, e, ok := x.edgePoints(it, 0); ok {
+			return tr.point(s), tr.point(e), true
 		}
 	}
 	return vec{}, vec{}, false

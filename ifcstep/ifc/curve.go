@@ -9,8 +9,9 @@ import (
 )
 
 // arcChordDeg is the largest angle (degrees) of one chord of an arc turned
-// into a polyline: 5° as the section package's own outlines use.
-const arcChordDeg = 5
+// into a polyline. The area lost between an arc and its chords is about
+// θ²/12 of the sector's (θ in radians): 0.03 % at 2°.
+const arcChordDeg = 2
 
 // curvePoints turns a closed 2-D profile curve into a polyline in mm:
 // IfcPolyline, IfcIndexedPolyCurve (lines and arcs), IfcCompositeCurve of
@@ -146,6 +147,33 @@ func (x *extractor) trimmedCurve(in ifcstep.Instance) ([]section.Point, error) {
 			out[i] = section.Point{X: w[0], Y: w[1]}
 		}
 		return out, nil
+	case "IFCELLIPSE":
+		c, a, b, ok := x.ellipse(basis)
+		if !ok {
+			return nil, errors.New("unreadable ellipse " + ref(basis))
+		}
+		t0, ok0 := x.trimParam(in.Attr(pTrim1))
+		t1, ok1 := x.trimParam(in.Attr(pTrim2))
+		if !ok0 || !ok1 {
+			return nil, unsupportedError("trims of the ellipse " + ref(in) + " by point are not supported")
+		}
+		if sense {
+			for t1 <= t0 {
+				t1 += 2 * math.Pi
+			}
+		} else {
+			for t1 >= t0 {
+				t1 -= 2 * math.Pi
+			}
+		}
+		n := max(int(math.Ceil(math.Abs(t1-t0)/(arcChordDeg*math.Pi/180))), 1)
+		out := make([]section.Point, n+1)
+		for i := 0; i <= n; i++ {
+			t := t0 + (t1-t0)*float64(i)/float64(n)
+			w := c.point(vec{a * math.Cos(t), b * math.Sin(t), 0})
+			out[i] = section.Point{X: w[0], Y: w[1]}
+		}
+		return out, nil
 	case "IFCLINE", "IFCPOLYLINE":
 		p0, ok0 := x.trimPoint(in, in.Attr(pTrim1), basis)
 		p1, ok1 := x.trimPoint(in, in.Attr(pTrim2), basis)
@@ -158,6 +186,41 @@ func (x *extractor) trimmedCurve(in ifcstep.Instance) ([]section.Point, error) {
 		return []section.Point{{X: p0[0], Y: p0[1]}, {X: p1[0], Y: p1[1]}}, nil
 	}
 	return nil, unsupportedError("trimmed " + entityName(basis.Type()) + " is not supported")
+}
+
+// ellipse reads an IfcEllipse: its placement frame and semi-axes (mm).
+func (x *extractor) ellipse(in ifcstep.Instance) (frame, float64, float64, bool) {
+	pos, ok := x.deref(in, in.Attr(pCirclePos))
+	if !ok {
+		return frame{}, 0, 0, false
+	}
+	f, ok := x.readAxis2Placement(pos)
+	if !ok {
+		return frame{}, 0, 0, false
+	}
+	a, ok1 := in.Attr(pCircleRadius).Real()
+	b, ok2 := in.Attr(pCircleRadius + 1).Real()
+	if !ok1 || !ok2 || !(a > 0) || !(b > 0) {
+		return frame{}, 0, 0, false
+	}
+	return f, a * x.lengthFactor, b * x.lengthFactor, true
+}
+
+// trimParam reads a trim given as a parameter value (an angle in the
+// model's plane angle unit).
+func (x *extractor) trimParam(v ifcstep.Value) (float64, bool) {
+	list, err := v.List()
+	if err != nil {
+		return 0, false
+	}
+	for _, e := range list {
+		if name, inner, ok := e.Typed(); ok && name == "IFCPARAMETERVALUE" {
+			if p, ok := inner.Real(); ok {
+				return p * x.angleFactor, true
+			}
+		}
+	}
+	return 0, false
 }
 
 // trimAngle reads one trim of a circle: a parameter value (an angle in the

@@ -66,6 +66,7 @@ var entitySpecs = []struct {
 	{"IFCCOMPOSITECURVESEGMENT", "Transition SameSense ParentCurve", "=", "="},
 	{"IFCTRIMMEDCURVE", "BasisCurve Trim1 Trim2 SenseAgreement MasterRepresentation", "=", "="},
 	{"IFCCIRCLE", "Position Radius", "=", "="},
+	{"IFCELLIPSE", "Position SemiAxis1 SemiAxis2", "=", "="},
 	{"IFCLINE", "Pnt Dir", "=", "="},
 	{"IFCVECTOR", "Orientation Magnitude", "=", "="},
 	// Profiles (§2.3).
