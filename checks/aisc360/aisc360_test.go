@@ -408,3 +408,16 @@ func TestTrace(t *testing.T) {
 		t.Errorf("B2 step %+v", s)
 	}
 }
+
+// TestCurvatureUnknown: when the reader cannot tell single from double
+// curvature, M1/M2 = -1 and C_m = 1.0 (the conservative end of A-8-4).
+func TestCurvatureUnknown(t *testing.T) {
+	m := column("M", iFor(4000e3, 4000), iFor(40_000e3, 4000))
+	m.Actions = []checks.Actions{act("ULS", 1000, 100, -100)}
+	m.Actions[0].Moments[0].CurvatureUnknown = true
+	rep := run(t, model(m), checks.DefaultOptions())
+	ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
+	near(t, "M1/M2", ax.BetaM, -1, 0)
+	near(t, "C_m", ax.Cm, 1, 0)            // source: AISC 360 A-8-4 (standards-notes §4 [C]): single curvature, uniform moment
+	near(t, "B1", ax.DeltaB, 1/0.75, 1e-9) // source: AISC 360 A-8-3: 1/(1 - 0.25)
+}

@@ -87,7 +87,7 @@ const (
 // endRatio returns M1/M2 for C_m and the note that explains it (A-8-4).
 func endRatio(s *checks.AxisSetup, mo *checks.AxisMoments, ambiguous bool) (float64, string) {
 	switch {
-	case ambiguous:
+	case ambiguous || mo.CurvatureUnknown:
 		return -1, noteSignAmbiguous
 	case s.Transverse || mo.Transverse || mo.InteriorUnknown:
 		return -1, noteTransverse
