@@ -1,14 +1,18 @@
 package api
 
 import (
+	"archive/zip"
+	"compress/flate"
+	"compress/gzip"
 	"context"
 	"errors"
+	"io"
 	"net/http"
-	"reflect"
 
 	"swaygate/api/store"
 	"swaygate/checks"
 	"swaygate/ifcstep"
+	"swaygate/ifcstep/sidecar"
 	"swaygate/internal/pipeline"
 )
 
@@ -96,11 +100,15 @@ func asAPIError(err error) *apiError {
 	return &apiError{status: http.StatusInternalServerError, code: codeInternal, msg: "internal error", cause: err}
 }
 
-// checkError maps an error of the Checker. Errors the user caused (the model,
-// the side-car, the options) are 4xx with the file position where there is
-// one; running out of time is 503; anything else is internal.
+// checkError maps an error of the Checker. Errors the user caused (the model:
+// *ifcstep.Error; the side-car: *sidecar.Error; the options: checks.ErrOption)
+// are 4xx with the file position where there is one; running out of time is
+// 503; anything else is internal.
 func checkError(err error, req *pipeline.Request) *apiError {
-	var se *ifcstep.Error
+	var (
+		se  *ifcstep.Error
+		sce *sidecar.Error
+	)
 	switch {
 	case errors.As(err, &se):
 		status := http.StatusUnprocessableEntity
@@ -108,6 +116,12 @@ func checkError(err error, req *pipeline.Request) *apiError {
 			return &apiError{status: status, code: codeInvalidActions, msg: err.Error(), pos: stepPosition(se), cause: err}
 		}
 		return &apiError{status: status, code: "model-" + se.Kind.String(), msg: err.Error(), pos: stepPosition(se), cause: err}
+	case errors.As(err, &sce):
+		return &apiError{status: http.StatusUnprocessableEntity, code: codeInvalidActions, msg: err.Error(),
+			pos: &errorPosition{File: sce.File, Line: sce.Line, Column: sce.Column}, cause: err}
+	case isContainerError(err):
+		return &apiError{status: http.StatusUnprocessableEntity, code: codeInvalidModel,
+			msg: req.Name + ": the gzip or zip container of the model cannot be read (" + containerCause(err) + ")", cause: err}
 	case errors.Is(err, checks.ErrOption):
 		return &apiError{status: http.StatusBadRequest, code: codeInvalidOption, msg: err.Error(), cause: err}
 	case errors.Is(err, context.DeadlineExceeded):
@@ -115,16 +129,6 @@ func checkError(err error, req *pipeline.Request) *apiError {
 			msg: "the check did not finish within the server's time limit", retryAfter: "60", cause: err}
 	case errors.Is(err, context.Canceled):
 		return &apiError{status: http.StatusServiceUnavailable, code: codeCanceled, msg: "the check was cancelled", cause: err}
-	case errors.Is(err, pipeline.ErrNotImplemented):
-		return &apiError{status: http.StatusServiceUnavailable, code: codeUnavailable,
-			msg: "this build cannot check models yet", cause: err}
-	}
-	if pos, file, ok := positionOf(err); ok {
-		code := codeInvalidModel
-		if file != "" && file == req.ActionsName {
-			code = codeInvalidActions
-		}
-		return &apiError{status: http.StatusUnprocessableEntity, code: code, msg: err.Error(), pos: pos, cause: err}
 	}
 	return &apiError{status: http.StatusInternalServerError, code: codeInternal, msg: "internal error", cause: err}
 }
@@ -133,60 +137,39 @@ func stepPosition(e *ifcstep.Error) *errorPosition {
 	return &errorPosition{File: e.File, Line: e.Pos.Line, Column: e.Pos.Column, Byte: e.Pos.Offset, Instance: e.ID}
 }
 
-// positionOf finds, in err's chain, an error value that carries a position in
-// an input file the way this module's readers do (a struct with File and
-// either Line or Pos.Line fields), such as the side-car reader's errors. The
-// readers' packages are not imported here so that a new reader needs no
-// change in this package; reflection runs only on the error path.
-func positionOf(err error) (*errorPosition, string, bool) {
-	for e := err; e != nil; e = errors.Unwrap(e) {
-		v := reflect.ValueOf(e)
-		if v.Kind() == reflect.Pointer {
-			if v.IsNil() {
-				continue
+// containerErrors are the faults of a damaged gzip or zip model, which the
+// reader returns wrapped with the file's path (a path of this server's that
+// the answer must not show).
+var containerErrors = []error{gzip.ErrHeader, gzip.ErrChecksum, io.ErrUnexpectedEOF,
+	zip.ErrFormat, zip.ErrAlgorithm, zip.ErrChecksum}
+
+// isContainerError reports whether err is a damaged gzip or zip container.
+func isContainerError(err error) bool {
+	var ce flate.CorruptInputError
+	if errors.As(err, &ce) {
+		return true
+	}
+	for _, c := range containerErrors {
+		if errors.Is(err, c) {
+			return true
+		}
+	}
+	return false
+}
+
+// containerCause is the message of the container fault without the path.
+func containerCause(err error) string {
+	var ce flate.CorruptInputError
+	if errors.As(err, &ce) {
+		return ce.Error()
+	}
+	for _, c := range containerErrors {
+		if errors.Is(err, c) {
+			if c == io.ErrUnexpectedEOF {
+				return "it ends early"
 			}
-			v = v.Elem()
+			return c.Error()
 		}
-		if v.Kind() != reflect.Struct {
-			continue
-		}
-		file := stringField(v, "File")
-		src := v
-		if p := v.FieldByName("Pos"); p.IsValid() && p.Kind() == reflect.Struct {
-			src = p
-		}
-		line, ok := intField(src, "Line")
-		if !ok || line <= 0 {
-			continue
-		}
-		col, _ := intField(src, "Column")
-		off, _ := intField(src, "Offset")
-		if off == 0 {
-			off, _ = intField(src, "Byte")
-		}
-		return &errorPosition{File: file, Line: line, Column: col, Byte: off}, file, true
 	}
-	return nil, "", false
-}
-
-func stringField(v reflect.Value, name string) string {
-	f := v.FieldByName(name)
-	if f.IsValid() && f.Kind() == reflect.String {
-		return f.String()
-	}
-	return ""
-}
-
-func intField(v reflect.Value, name string) (int, bool) {
-	f := v.FieldByName(name)
-	if !f.IsValid() {
-		return 0, false
-	}
-	switch f.Kind() {
-	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
-		return int(f.Int()), true
-	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
-		return int(f.Uint()), true
-	}
-	return 0, false
+	return "damaged"
 }

@@ -17,7 +17,6 @@ import (
 	"github.com/gin-gonic/gin"
 
 	"swaygate/api/store"
-	"swaygate/internal/pipeline"
 	"swaygate/reports"
 )
 
@@ -338,20 +337,6 @@ func TestCreateCheckEmptyModel(t *testing.T) {
 	}
 	if g := r["gate"].(map[string]any); g["passed"] != true {
 		t.Errorf("gate %v", g)
-	}
-}
-
-// TestCreateCheckNotImplemented: until the pipeline is wired, the service
-// says so with 503.
-func TestCreateCheckNotImplemented(t *testing.T) {
-	env := newTestEnv(t, func(o *Options) {
-		o.Checker = CheckerFunc(func(context.Context, pipeline.Request) (*pipeline.Result, error) {
-			return nil, pipeline.ErrNotImplemented
-		})
-	})
-	rec := env.post("", fakeModel)
-	if code, _, _ := errorOf(t, rec); rec.Code != 503 || code != codeUnavailable {
-		t.Errorf("%d %s", rec.Code, rec.Body)
 	}
 }
 

@@ -30,6 +30,7 @@ import (
 	"swaygate/api/store"
 	"swaygate/checks"
 	"swaygate/ifcstep"
+	"swaygate/ifcstep/sidecar"
 	"swaygate/internal/pipeline"
 	"swaygate/reports"
 )
@@ -45,18 +46,6 @@ const (
 	fakeModel = "ISO-10303-21;\nHEADER;\nFILE_SCHEMA(('IFC4'));\nENDSEC;\nDATA;\n#1=IFCCOLUMN('2O2Fr$t4X7Zf8NOew3FLOH',$,'C1',$,$,$,$,$,$);\nENDSEC;\nEND-ISO-10303-21;\n"
 )
 
-// sideCarError mimics the side-car reader's positioned error (File, Line,
-// Column fields) that checkError finds by its shape.
-type sideCarError struct {
-	File         string
-	Line, Column int
-	Msg          string
-}
-
-func (e *sideCarError) Error() string {
-	return fmt.Sprintf("%s: line %d, column %d: %s", e.File, e.Line, e.Column, e.Msg)
-}
-
 // fakeChecker answers by the directives found in the model:
 //
 //	not starting with ISO-10303-21;  an *ifcstep.Error of kind not-step
@@ -65,6 +54,7 @@ func (e *sideCarError) Error() string {
 //	FAKE-INTERNAL    a plain error
 //	FAKE-PANIC       a panic
 //	FAKE-WAIT        blocks until the context is done
+//	FAKE-SLEEP       takes 300 ms (or until the context is done), then answers
 //	FAKE-EMPTY       a report without elements and with a warning
 //	FAKE-SET:GID=V;  member GID gets verdict V (pass, fail, needs-analysis)
 //	FAKE-DUP         two elements with the same GlobalId
@@ -125,6 +115,15 @@ func (f *fakeChecker) Check(ctx context.Context, req pipeline.Request) (*pipelin
 		}
 		<-ctx.Done()
 		return nil, ctx.Err()
+	case strings.Contains(s, "FAKE-SLEEP"):
+		if f.started != nil {
+			f.started <- req.RunID
+		}
+		select {
+		case <-time.After(300 * time.Millisecond):
+		case <-ctx.Done():
+			return nil, ctx.Err()
+		}
 	}
 
 	rep := fakeReport(s)
@@ -134,7 +133,7 @@ func (f *fakeChecker) Check(ctx context.Context, req pipeline.Request) (*pipelin
 			return nil, err
 		}
 		if bytes.Contains(a, []byte("BAD")) {
-			return nil, fmt.Errorf("sidecar: %w", &sideCarError{File: req.ActionsName, Line: 2, Column: 5, Msg: "axial_compression_kN is not a number"})
+			return nil, fmt.Errorf("sidecar: %w", &sidecar.Error{File: req.ActionsName, Line: 2, Column: 5, Msg: "axial_compression_kN is not a number"})
 		}
 		if bytes.Contains(a, []byte("UNKNOWNGID")) {
 			rep.Warnings = append(rep.Warnings, checks.Reason{Code: checks.CodeUnknownGlobalID,
