@@ -33,7 +33,7 @@
 //     ties to the largest delta_m), compacts reasons (one that recurs in every
 //     combination is kept once), counts the summary and keeps the trace.
 //   - A RuleSet is one design standard, in its own package (checks/as4100,
-//     checks/nzs3404): its default modulus, the member buckling loads (Member),
+//     checks/nzs3404, checks/en1993, checks/aisc360): its default modulus, the member buckling loads (Member),
 //     which storey form it uses (StoreyLambda), the amplification and the
 //     reasons of one axis under one combination (Amplify), its capacity checks
 //     for scope full (Capacity) and its clause labels in the trace. Constants,
@@ -83,7 +83,7 @@
 // # Layout
 //
 // The rule set of each design standard is its own subpackage (as4100, nzs3404,
-// ...): constants, thresholds and formulas of a standard live there and nowhere
+// en1993, aisc360): constants, thresholds and formulas of a standard live there and nowhere
 // else. Section properties are computed in checks/section from plain shape
 // structs.
 package checks
