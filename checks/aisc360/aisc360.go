@@ -152,6 +152,10 @@ func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
 		as = append(as,
 			"AISC 360: B2 of each sway axis from the member's own P_e2 (member method, user choice): this is not a method of "+
 				"the current specification, which takes B2 per storey (A-8-6, A-8-7), and it ignores the load of leaning columns")
+	case "frame":
+		as = append(as,
+			"AISC 360: P_e,story/P_story from the elastic buckling analysis of the frame (the sidesway buckling analysis "+
+				"that A-8-7 permits), without R_M")
 	}
 	return as, nil
 }

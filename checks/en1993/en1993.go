@@ -118,6 +118,10 @@ func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
 		as = append(as,
 			"EN 1993-1-1: alpha_cr of each sway axis is the member's own N_cr/N_Ed (user choice); "+clauseAlpha+
 				" defines alpha_cr for the whole structure, so this ignores the load of leaning columns")
+	case "frame":
+		as = append(as,
+			"EN 1993-1-1: alpha_cr = F_cr/F_Ed ("+clauseAlpha+") from the elastic buckling analysis of the frame, "+
+				"based on the initial elastic stiffnesses")
 	}
 	return as, nil
 }
