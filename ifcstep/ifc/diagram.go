@@ -83,9 +83,10 @@ func toSectionForces(st []station, c SignConvention) []sectionForce {
 // exact. The moments are taken about the start: M0 + M1 + (L·ax) × F1.
 func equilibriumResidual(f0, m0, f1, m1 vec, ax vec, l float64) float64 {
 	r := ax.scale(l)
-	dm := m0.add(m1).add(r.cross(f1))
+	couple := r.cross(f1)
+	dm := m0.add(m1).add(couple)
 	df := f0.add(f1)
-	scaleM := math.Max(math.Max(m0.norm(), m1.norm()), l*math.Max(f0.norm(), f1.norm()))
+	scaleM := math.Max(math.Max(m0.norm(), m1.norm()), couple.norm())
 	scaleF := math.Max(f0.norm(), f1.norm())
 	res := 0.0
 	if scaleM > 0 {

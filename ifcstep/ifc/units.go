@@ -199,8 +199,34 @@ func (x *extractor) factor(q quantity) float64 {
 	if q != qNone && !u.assigned[q].ok && !u.noted[q] {
 		u.noted[q] = true
 		x.assume("no " + quantityInfo[q].unitType + " in the model's unit assignment: values of that type read in " + quantityInfo[q].si + " (SI)")
+		// A derived quantity without a unit while the units it derives from
+		// are not SI is suspect: the exporter may have meant the coherent
+		// unit of its own (pound-force inch, say).
+		if base := derivedFrom[q]; base != nil {
+			var odd []string
+			for _, b := range base {
+				if a := u.assigned[b]; a.ok && a.factor != 1 {
+					odd = append(odd, strings.ToLower(quantityInfo[b].unitType)+" "+a.name)
+				}
+			}
+			if len(odd) > 0 {
+				x.warn("unit-missing", "no "+quantityInfo[q].unitType+" is assigned while the model's "+strings.Join(odd, " and ")+
+					" are not SI: values of that type are read in "+quantityInfo[q].si+" (SI), which may not be what the exporter meant", "")
+			}
+		}
 	}
 	return u.toInt[q]
+}
+
+// derivedFrom names the quantities whose units a derived quantity's unit is
+// usually built from.
+var derivedFrom = map[quantity][]quantity{
+	qTorque:  {qForce, qLength},
+	qModulus: {qPressure},
+	qInertia: {qLength},
+	qSecMod:  {qLength},
+	qWarping: {qLength},
+	qArea:    {qLength},
 }
 
 // resolveUnit resolves an IfcNamedUnit or IfcDerivedUnit to its SI factor
