@@ -11,7 +11,6 @@ import (
 	"strconv"
 	"strings"
 
-	"github.com/google/uuid"
 	"github.com/spf13/cobra"
 
 	"swaygate/checks"
@@ -53,7 +52,7 @@ type checkFlags struct {
 	progress      string
 }
 
-func newCheckCmd() *cobra.Command {
+func newCheckCmd(d deps) *cobra.Command {
 	var fl checkFlags
 	cmd := &cobra.Command{
 		Use:   "check MODEL",
@@ -71,7 +70,7 @@ the command line win. Results support, and never replace, the judgement of a lic
 engineer and the local building code.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			return runCheck(cmd, args[0], &fl)
+			return runCheck(cmd, args[0], &fl, d)
 		},
 	}
 	f := cmd.Flags()
@@ -104,7 +103,7 @@ engineer and the local building code.`,
 }
 
 // runCheck is the check command.
-func runCheck(cmd *cobra.Command, model string, fl *checkFlags) error {
+func runCheck(cmd *cobra.Command, model string, fl *checkFlags, d deps) error {
 	if err := applyProjectFile(cmd, model, fl); err != nil {
 		return err
 	}
@@ -137,7 +136,8 @@ func runCheck(cmd *cobra.Command, model string, fl *checkFlags) error {
 		Gate:        fl.gate,
 		Project:     fl.project,
 		Units:       fl.units,
-		RunID:       uuid.NewString(),
+		RunID:       d.newRunID(),
+		Now:         d.now,
 		ToolVersion: version,
 	})
 	if err != nil {

@@ -120,8 +120,8 @@ func depotColumns() []column {
 			c.act[0] = [5]float64{520, 0, 0, 10, 10}
 			c.act[1] = [5]float64{380, 0, 0, 7, 7}
 		case "C2":
-			c.act[0] = [5]float64{900, 0, 0, 0, 6}
-			c.act[1] = [5]float64{640, 0, 0, 0, 4}
+			c.act[0] = [5]float64{900, 0, 6, 0, 0}
+			c.act[1] = [5]float64{640, 0, 4, 0, 0}
 		}
 	}
 	cs = append(cs, column{name: "SC1", gx: 1, gy: 0, storey: 0, profile: "400x400 concrete", concrete: true})
@@ -152,14 +152,16 @@ func depotActions(c column) [2][5]float64 {
 			{n2, 55, -48, 2, 3},
 		}
 	case c.storey == 0:
+		// Gravity columns: the pinned Y beams bear on their flanges, so
+		// the eccentric reactions bend them about the braced (major) axis.
 		return [2][5]float64{
-			{1150, 0, 8, 0, 8},
-			{800, 0, 6, 0, 6},
+			{1150, 0, 8, 0, 0},
+			{800, 0, 6, 0, 0},
 		}
 	default:
 		return [2][5]float64{
-			{420, 0, 5, 0, 6},
-			{300, 0, 4, 0, 4},
+			{420, 0, 5, 0, 0},
+			{300, 0, 4, 0, 0},
 		}
 	}
 }
