@@ -518,21 +518,11 @@ func (s *Server) keep(runID string, up *upload) bool {
 	if !ok {
 		return false
 	}
-	if err := os.MkdirAll(dir, 0o750); err != nil {
+	if err := os.Rename(up.dir, dir); err != nil {
 		s.log.Error("keep model", zap.String("run_id", runID), zap.Error(err))
 		return false
 	}
-	moved := true
-	for _, f := range []struct{ path, name string }{{up.modelPath, up.modelName}, {up.actionsPath, up.actionsName}} {
-		if f.path == "" {
-			continue
-		}
-		if err := os.Rename(f.path, filepath.Join(dir, f.name)); err != nil {
-			s.log.Error("keep model", zap.String("run_id", runID), zap.Error(err))
-			moved = false
-		}
-	}
-	return moved
+	return true
 }
 
 // keptDir is the folder of a run's kept model; ok is false for an id that

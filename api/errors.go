@@ -8,6 +8,7 @@ import (
 	"errors"
 	"io"
 	"net/http"
+	"strings"
 
 	"swaygate/api/store"
 	"swaygate/checks"
@@ -111,19 +112,24 @@ func checkError(err error, req *pipeline.Request) *apiError {
 	)
 	switch {
 	case errors.As(err, &se):
-		status := http.StatusUnprocessableEntity
-		if se.File != "" && se.File == req.ActionsName {
-			return &apiError{status: status, code: codeInvalidActions, msg: err.Error(), pos: stepPosition(se), cause: err}
+		e := *se // named by the display name, never by this server's path
+		e.File = displayName(e.File, req)
+		code := "model-" + se.Kind.String()
+		if e.File != "" && e.File == req.ActionsName {
+			code = codeInvalidActions
 		}
-		return &apiError{status: status, code: "model-" + se.Kind.String(), msg: err.Error(), pos: stepPosition(se), cause: err}
+		return &apiError{status: http.StatusUnprocessableEntity, code: code, msg: hidePaths(e.Error(), req),
+			pos: stepPosition(&e), cause: err}
 	case errors.As(err, &sce):
-		return &apiError{status: http.StatusUnprocessableEntity, code: codeInvalidActions, msg: err.Error(),
-			pos: &errorPosition{File: sce.File, Line: sce.Line, Column: sce.Column}, cause: err}
+		e := *sce
+		e.File = displayName(e.File, req)
+		return &apiError{status: http.StatusUnprocessableEntity, code: codeInvalidActions, msg: hidePaths(e.Error(), req),
+			pos: &errorPosition{File: e.File, Line: e.Line, Column: e.Column}, cause: err}
 	case isContainerError(err):
 		return &apiError{status: http.StatusUnprocessableEntity, code: codeInvalidModel,
 			msg: req.Name + ": the gzip or zip container of the model cannot be read (" + containerCause(err) + ")", cause: err}
 	case errors.Is(err, checks.ErrOption):
-		return &apiError{status: http.StatusBadRequest, code: codeInvalidOption, msg: err.Error(), cause: err}
+		return &apiError{status: http.StatusBadRequest, code: codeInvalidOption, msg: hidePaths(err.Error(), req), cause: err}
 	case errors.Is(err, context.DeadlineExceeded):
 		return &apiError{status: http.StatusServiceUnavailable, code: codeTimeout,
 			msg: "the check did not finish within the server's time limit", retryAfter: "60", cause: err}
@@ -131,6 +137,27 @@ func checkError(err error, req *pipeline.Request) *apiError {
 		return &apiError{status: http.StatusServiceUnavailable, code: codeCanceled, msg: "the check was cancelled", cause: err}
 	}
 	return &apiError{status: http.StatusInternalServerError, code: codeInternal, msg: "internal error", cause: err}
+}
+
+// displayName maps the path of an uploaded file to its display name.
+func displayName(file string, req *pipeline.Request) string {
+	switch file {
+	case req.ModelPath:
+		return req.Name
+	case req.ActionsPath:
+		return req.ActionsName
+	}
+	return file
+}
+
+// hidePaths replaces the uploaded files' paths in msg by their display names.
+func hidePaths(msg string, req *pipeline.Request) string {
+	for _, p := range [][2]string{{req.ModelPath, req.Name}, {req.ActionsPath, req.ActionsName}} {
+		if p[0] != "" {
+			msg = strings.ReplaceAll(msg, p[0], p[1])
+		}
+	}
+	return msg
 }
 
 func stepPosition(e *ifcstep.Error) *errorPosition {

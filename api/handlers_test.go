@@ -200,6 +200,8 @@ func TestCreateCheckErrors(t *testing.T) {
 			pos: map[string]any{"file": "model.ifc", "line": 1.0, "column": 1.0, "byte": 0.0}},
 		{name: "truncated", query: "name=t.ifc", body: []byte(fakeModel + "FAKE-TRUNCATED"), status: 422, code: "model-truncated",
 			pos: map[string]any{"file": "t.ifc", "line": 3.0, "column": 7.0, "byte": 40.0, "instance": 12.0}},
+		{name: "error naming the server's path", query: "name=p.ifc", body: []byte(fakeModel + "FAKE-PATHERR"), status: 422, code: "model-syntax",
+			pos: map[string]any{"file": "p.ifc", "line": 2.0, "column": 1.0, "byte": 14.0}},
 		{name: "option refused by the engine", body: []byte(fakeModel + "FAKE-OPTION"), status: 400, code: codeInvalidOption},
 		{name: "internal error", body: []byte(fakeModel + "FAKE-INTERNAL"), status: 500, code: codeInternal},
 		{name: "checker panic", body: []byte(fakeModel + "FAKE-PANIC"), status: 500, code: codeInternal},
@@ -232,7 +234,7 @@ func TestCreateCheckErrors(t *testing.T) {
 			if tt.pos == nil && pos != nil {
 				t.Errorf("unexpected position %v", pos)
 			}
-			for _, leak := range []string{"goroutine", "secret", ".go:", "/srv/"} {
+			for _, leak := range []string{"goroutine", "secret", ".go:", "/srv/", env.dir, tmpPrefix} {
 				if strings.Contains(rec.Body.String(), leak) {
 					t.Errorf("the response leaks %q: %s", leak, rec.Body)
 				}

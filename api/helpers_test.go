@@ -50,6 +50,7 @@ const (
 //
 //	not starting with ISO-10303-21;  an *ifcstep.Error of kind not-step
 //	FAKE-TRUNCATED   an *ifcstep.Error of kind truncated at line 3, column 7, byte 40, #12
+//	FAKE-PATHERR     an *ifcstep.Error naming the model by its path on disk
 //	FAKE-OPTION      an error wrapping checks.ErrOption
 //	FAKE-INTERNAL    a plain error
 //	FAKE-PANIC       a panic
@@ -103,6 +104,9 @@ func (f *fakeChecker) Check(ctx context.Context, req pipeline.Request) (*pipelin
 	case strings.Contains(s, "FAKE-TRUNCATED"):
 		return nil, &ifcstep.Error{File: req.Name, Pos: ifcstep.Position{Line: 3, Column: 7, Offset: 40}, ID: 12,
 			Kind: ifcstep.ErrTruncated, Msg: "the file ends inside an instance"}
+	case strings.Contains(s, "FAKE-PATHERR"):
+		return nil, &ifcstep.Error{File: req.ModelPath, Pos: ifcstep.Position{Line: 2, Column: 1, Offset: 14}, Kind: ifcstep.ErrSyntax,
+			Msg: "see " + req.ModelPath}
 	case strings.Contains(s, "FAKE-OPTION"):
 		return nil, fmt.Errorf("checks: unknown trace level %q: %w", "x", checks.ErrOption)
 	case strings.Contains(s, "FAKE-INTERNAL"):

@@ -20,8 +20,12 @@ import (
 // what a crash left behind.
 const tmpPrefix = "swaygate-"
 
-// upload is a received model (and optional side-car) on disk.
+// upload is a received model (and optional side-car) on disk, in a folder of
+// its own under the temporary folder. The model's file is named by its
+// display name, so that the reader names it so in messages and can map it
+// instead of reading it.
 type upload struct {
+	dir         string
 	modelPath   string
 	modelName   string // display name
 	modelSize   int64
@@ -29,13 +33,10 @@ type upload struct {
 	actionsName string
 }
 
-// remove deletes the files still in the temporary folder.
+// remove deletes the upload's folder.
 func (u *upload) remove() {
-	if u.modelPath != "" {
-		os.Remove(u.modelPath)
-	}
-	if u.actionsPath != "" {
-		os.Remove(u.actionsPath)
+	if u.dir != "" {
+		os.RemoveAll(u.dir)
 	}
 }
 
@@ -95,17 +96,22 @@ func (s *Server) receive(c *gin.Context, name string) (*upload, error) {
 			"Content-Encoding "+strconv.Quote(enc)+" is not accepted (gzip is)")
 	}
 
-	u := &upload{}
+	dir, err := os.MkdirTemp(s.tmpDir, tmpPrefix+"upload-*")
+	if err != nil {
+		return nil, storageError(err)
+	}
+	u := &upload{dir: dir}
 	if !multi {
 		u.modelName = name
 		if u.modelName == "" {
 			u.modelName = "model.ifc"
 		}
-		u.modelPath, u.modelSize, err = s.saveFile(body, u.modelName, limit)
+		u.modelPath, u.modelSize, err = saveFile(dir, body, u.modelName, "model", limit)
 		if err != nil {
+			u.remove()
 			return nil, inputError(err, limit)
 		}
-	} else if err := s.receiveMultipart(body, params["boundary"], name, u, limit); err != nil {
+	} else if err := receiveMultipart(body, params["boundary"], name, u, limit); err != nil {
 		u.remove()
 		return nil, err
 	}
@@ -117,7 +123,7 @@ func (s *Server) receive(c *gin.Context, name string) (*upload, error) {
 }
 
 // receiveMultipart saves the parts "model" and "actions".
-func (s *Server) receiveMultipart(body io.Reader, boundary, name string, u *upload, limit int64) error {
+func receiveMultipart(body io.Reader, boundary, name string, u *upload, limit int64) error {
 	if boundary == "" {
 		return newError(http.StatusBadRequest, codeInvalidMultipart, "multipart/form-data without a boundary")
 	}
@@ -137,14 +143,14 @@ func (s *Server) receiveMultipart(body io.Reader, boundary, name string, u *uplo
 				return newError(http.StatusBadRequest, codeInvalidMultipart, "more than one part named model")
 			}
 			u.modelName = cleanName(p.FileName(), name, "model.ifc")
-			u.modelPath, u.modelSize, err = s.saveFile(p, u.modelName, limit)
+			u.modelPath, u.modelSize, err = saveFile(u.dir, p, u.modelName, "model", limit)
 		case "actions":
 			if u.actionsPath != "" {
 				return newError(http.StatusBadRequest, codeInvalidMultipart, "more than one part named actions")
 			}
 			u.actionsName = cleanName(p.FileName(), "", "actions.csv")
 			var n int64
-			u.actionsPath, n, err = s.saveFile(p, u.actionsName, limit)
+			u.actionsPath, n, err = saveFile(u.dir, p, u.actionsName, "actions", limit)
 			if err == nil && n == 0 {
 				err = newError(http.StatusBadRequest, codeEmptyBody, "the actions part is empty")
 			}
@@ -166,16 +172,20 @@ func (s *Server) receiveMultipart(body io.Reader, boundary, name string, u *uplo
 	return nil
 }
 
-// saveFile copies r to a new temporary file named after name's extension,
-// at most limit bytes, and returns its path and size. Errors writing the
-// file are writeErr (the server's); others come from reading r (the
-// client's): callers map them with inputError or multipartError.
-func (s *Server) saveFile(r io.Reader, name string, limit int64) (string, int64, error) {
-	f, err := os.CreateTemp(s.tmpDir, tmpPrefix+"upload-*"+fileExt(name))
+// saveFile copies r to a new file in dir named name (or, when that cannot
+// be created, alt and name's extension), at most limit bytes, and returns
+// its path and size. Errors writing the file are writeErr (the server's);
+// others come from reading r (the client's): callers map them with
+// inputError or multipartError.
+func saveFile(dir string, r io.Reader, name, alt string, limit int64) (string, int64, error) {
+	path := filepath.Join(dir, name)
+	f, err := os.OpenFile(path, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o600)
 	if err != nil {
-		return "", 0, storageError(err)
+		path = filepath.Join(dir, alt+fileExt(name))
+		if f, err = os.OpenFile(path, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o600); err != nil {
+			return "", 0, writeErr{err}
+		}
 	}
-	path := f.Name()
 	n, err := copyLimited(f, r, limit)
 	if cerr := f.Close(); err == nil && cerr != nil {
 		err = writeErr{cerr}

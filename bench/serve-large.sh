@@ -4,6 +4,7 @@
 #
 #   bench/serve-large.sh [TARGET_MB]      (default 300)
 #
+# SWAYGATE_BIN=path uses a built binary instead of building one.
 # Writes bench/out/serve-large/ (ignored by git): the model, the data
 # directory, the server's log and time -v output, and the report.
 set -euo pipefail
@@ -13,10 +14,12 @@ MB="${1:-300}"
 OUT=bench/out/serve-large
 MODEL="$OUT/model-${MB}mb.ifc"
 DATA="$OUT/data"
-BIN="$OUT/swaygate"
 mkdir -p "$OUT"
-
-go build -o "$BIN" ./cmd/swaygate
+BIN="${SWAYGATE_BIN:-}"
+if [ -z "$BIN" ]; then
+  BIN="$OUT/swaygate"
+  go build -o "$BIN" ./cmd/swaygate
+fi
 if [ ! -f "$MODEL" ]; then
   "$BIN" generate --target-mb "$MB" --out "$MODEL"
 fi

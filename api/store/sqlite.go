@@ -13,6 +13,7 @@ import (
 	"path/filepath"
 	"strconv"
 	"strings"
+	"sync"
 	"time"
 
 	"swaygate/checks"
@@ -29,6 +30,10 @@ const SQLiteFile = "swaygate.db"
 type SQLite struct {
 	w *sql.DB // the one writer connection
 	r *sql.DB // readers
+
+	// gz reuses gzip writers: each holds about 1 MB of compressor state,
+	// which dominated the cost of storing a small run.
+	gz sync.Pool
 }
 
 var _ Store = (*SQLite)(nil)
@@ -103,7 +108,7 @@ func (s *SQLite) CreateRun(ctx context.Context, r *Run, elements []Element, docs
 	}
 	ps := make([]packed, 0, len(docs))
 	for _, d := range docs {
-		size, body, err := compress(d.Body)
+		size, body, err := s.compress(d.Body)
 		if err != nil {
 			return fmt.Errorf("store: document %s of run %s: %w", d.Kind, r.ID, err)
 		}
@@ -463,12 +468,18 @@ func decodeCursor(c string) (int64, bool) {
 
 // compress reads r to the end into a gzip stream and returns the number of
 // bytes read and the compressed bytes.
-func compress(r io.Reader) (int64, []byte, error) {
+func (s *SQLite) compress(r io.Reader) (int64, []byte, error) {
 	var buf bytes.Buffer
-	zw, err := gzip.NewWriterLevel(&buf, gzip.BestSpeed)
-	if err != nil {
-		return 0, nil, err
+	zw, _ := s.gz.Get().(*gzip.Writer)
+	if zw == nil {
+		var err error
+		if zw, err = gzip.NewWriterLevel(&buf, gzip.BestSpeed); err != nil {
+			return 0, nil, err
+		}
+	} else {
+		zw.Reset(&buf)
 	}
+	defer s.gz.Put(zw)
 	n, err := io.Copy(zw, r)
 	if err != nil {
 		return 0, nil, err
