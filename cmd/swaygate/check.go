@@ -25,6 +25,7 @@ import (
 type checkFlags struct {
 	standard      string
 	actions       string
+	storeys       string
 	swayMethod    string
 	scope         string
 	format        string
@@ -76,6 +77,7 @@ engineer and the local building code.`,
 	f := cmd.Flags()
 	f.StringVar(&fl.standard, "standard", standards.Default, "design standard: "+strings.Join(standards.Names(), ", "))
 	f.StringVar(&fl.actions, "actions", "", "side-car design actions (CSV or JSON, keyed by GlobalId); replaces the model's own results")
+	f.StringVar(&fl.storeys, "storeys", "", "storey file (CSV or JSON): storey shear, drift and height per storey, direction and combination, for the drift forms of lambda_c")
 	f.StringVar(&fl.swayMethod, "sway-method", "storey", "lambda_c of sway axes: storey, member or frame")
 	f.StringVar(&fl.scope, "scope", "", "stability (amplification only) or full (adds member capacity); default: the standard's")
 	f.StringVar(&fl.format, "format", "text", "output format: text, json, junit, csv or html")
@@ -129,6 +131,7 @@ func runCheck(cmd *cobra.Command, model string, fl *checkFlags, d deps) error {
 	res, err := pipeline.Check(ctx, pipeline.Request{
 		ModelPath:   model,
 		ActionsPath: fl.actions,
+		StoreysPath: fl.storeys,
 		Options:     opt,
 		Include:     include,
 		LoadCases:   fl.loadCases,

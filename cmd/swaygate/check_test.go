@@ -302,3 +302,36 @@ func TestCheckProjectFile(t *testing.T) {
 		t.Errorf("flag did not win over the project file")
 	}
 }
+
+// TestCheckStoreyFile: storey shear and drift rows switch the storey to the
+// drift form of AS 4100 4.4.2.3(a)(i): lambda = h_s·ΣV*/(Δ_s·ΣN*).
+func TestCheckStoreyFile(t *testing.T) {
+	out, stderr, code := runCheckCmd(t, demoModel, "--format", "json", "--storeys", filepath.Join(demoDir, "tern-street-depot-storeys.csv"))
+	if code == exitUsage {
+		t.Fatal(stderr)
+	}
+	var r struct {
+		Storeys []struct {
+			Name, Direction, Combination, Form string
+			LambdaC                           float64 `json:"lambda_c"`
+		}
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, s := range r.Storeys {
+		if s.Name == "Ground Floor" && s.Direction == "X" && strings.HasPrefix(s.Combination, "ULS-2") {
+			found = true
+			// source: AS 4100 4.4.2.3(a)(i) storey-drift form with the demo's
+			// invented storey row: 4500·120/(9·5280) (ΣN* = 2·440 + 2·600 + 4·800 kN).
+			want := 4500.0 * 120 / (9 * 5280)
+			if math.Abs(s.LambdaC-want) > 1e-6*want {
+				t.Errorf("ground X ULS-2 lambda_c = %g (form %s), want %g", s.LambdaC, s.Form, want)
+			}
+		}
+	}
+	if !found {
+		t.Error("no Ground Floor X ULS-2 storey row")
+	}
+}

@@ -21,7 +21,7 @@ var projectKeys = map[string]bool{
 	"sign-convention": true, "ke-from": true, "default-restraint": true,
 	"default-major": true, "default-minor": true, "modulus": true, "yield": true,
 	"member-pdelta-modelled": true, "load-cases": true, "include": true, "project": true,
-	"actions": true,
+	"actions": true, "storeys": true,
 }
 
 // applyProjectFile reads the project defaults file (the one named by
@@ -29,8 +29,8 @@ var projectKeys = map[string]bool{
 // every flag it names that the command line did not set.
 //
 // The format is one "key = value" per line, keys being check flag names
-// without the dashes; '#' starts a comment. A relative "actions" path is
-// taken relative to the file.
+// without the dashes; '#' starts a comment. A relative "actions" or
+// "storeys" path is taken relative to the file.
 func applyProjectFile(cmd *cobra.Command, model string, fl *checkFlags) error {
 	if fl.noProjectFile {
 		return nil
@@ -72,7 +72,7 @@ func applyProjectFile(cmd *cobra.Command, model string, fl *checkFlags) error {
 		if flag == nil || flag.Changed {
 			continue
 		}
-		if key == "actions" && value != "" && !filepath.IsAbs(value) {
+		if (key == "actions" || key == "storeys") && value != "" && !filepath.IsAbs(value) {
 			value = filepath.Join(filepath.Dir(path), value)
 		}
 		if err := cmd.Flags().Set(key, value); err != nil {

@@ -20,6 +20,7 @@ func TestDemoFilesUpToDate(t *testing.T) {
 		{"tern-street-depot.ifc", func(b *bytes.Buffer) error { return Write(b, Units{}) }},
 		{"tern-street-depot-m-n.ifc", func(b *bytes.Buffer) error { return Write(b, Units{Metres: true, Newtons: true}) }},
 		{"tern-street-depot-actions.csv", func(b *bytes.Buffer) error { return WriteActionsCSV(b) }},
+		{"tern-street-depot-storeys.csv", func(b *bytes.Buffer) error { return WriteStoreysCSV(b) }},
 	}
 	for _, c := range cases {
 		var b bytes.Buffer

@@ -542,3 +542,13 @@ func round(x float64, digits int) float64 {
 	p := math.Pow(10, float64(digits))
 	return math.Round(x*p) / p
 }
+
+// WriteStoreysCSV writes the storey shear and drift of the wind combination
+// in X (invented first-order analysis output) as a storey file, for the
+// drift forms of the storey buckling load factor.
+func WriteStoreysCSV(w io.Writer) error {
+	_, err := io.WriteString(w, "storey,direction,combination,storey_shear_kN,storey_drift_mm,storey_height_mm\n"+
+		storeys[0]+",X,"+combos[1]+",120,9,4500\n"+
+		storeys[1]+",X,"+combos[1]+",60,6.5,3600\n")
+	return err
+}

@@ -37,6 +37,11 @@ type Request struct {
 	// ActionsName is the side-car's display name in messages (default: the
 	// base name of ActionsPath).
 	ActionsName string
+	// StoreysPath is an optional storey file (storey shear, drift and height
+	// per storey, direction and combination) for the drift forms of the
+	// storey buckling load factor; StoreysName its display name.
+	StoreysPath string
+	StoreysName string
 
 	Options checks.Options
 	// Include lists IfcMember predefined types to check as well as columns,
@@ -141,6 +146,22 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 	m, err := ifc.Extract(f, opt)
 	if err != nil {
 		return nil, err
+	}
+	if req.StoreysPath != "" {
+		sn := req.StoreysName
+		if sn == "" {
+			sn = filepath.Base(req.StoreysPath)
+		}
+		fh, err := os.Open(req.StoreysPath)
+		if err != nil {
+			return nil, err
+		}
+		rows, err := sidecar.ReadStoreys(fh, sn)
+		fh.Close()
+		if err != nil {
+			return nil, err
+		}
+		m.StoreyData = append(m.StoreyData, rows...)
 	}
 	return &Loaded{
 		File:  f,
