@@ -182,3 +182,30 @@ func TestBadInput(t *testing.T) {
 		t.Errorf("good model after the battery: %d %s", code, body)
 	}
 }
+
+// TestExpandedLimit: a gzip model that expands beyond the upload limit is
+// refused (422, the reader's limit); a plain one beyond it is 413.
+func TestExpandedLimit(t *testing.T) {
+	demo, err := os.ReadFile(demoModel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var gz bytes.Buffer
+	zw := gzip.NewWriter(&gz)
+	zw.Write(demo)
+	zw.Close()
+	limit := int64(len(demo) / 2)
+	if int64(gz.Len()) >= limit {
+		t.Fatalf("the compressed demo (%d bytes) is not below the limit %d", gz.Len(), limit)
+	}
+	ls := startLive(t, t.TempDir(), func(o *Options) { o.MaxUploadBytes = limit })
+	code, body := ls.post(t, "name=demo.ifc.gz", "application/gzip", bytes.NewReader(gz.Bytes()))
+	var e errorBody
+	json.Unmarshal(body, &e)
+	if code != 422 || e.Error.Code != "model-limit" {
+		t.Errorf("expanding gzip model: %d %s", code, body)
+	}
+	if code, body := ls.post(t, "name=demo.ifc", "application/x-step", bytes.NewReader(demo)); code != 413 {
+		t.Errorf("plain model beyond the limit: %d %s", code, body)
+	}
+}

@@ -22,6 +22,7 @@ import (
 	"swaygate/api/store"
 	"swaygate/checks"
 	"swaygate/checks/standards"
+	"swaygate/ifcstep"
 	"swaygate/internal/pipeline"
 	"swaygate/reports"
 )
@@ -193,6 +194,9 @@ func (s *Server) createCheck(c *gin.Context) (reply, error) {
 		RunID:       s.opt.NewRunID(),
 		Now:         s.opt.Now,
 		ToolVersion: s.opt.ToolVersion,
+		// A gzip or zip model is bounded by the upload limit once expanded,
+		// as a gzip Content-Encoding is.
+		Limits: ifcstep.Limits{MaxFileSize: s.opt.MaxUploadBytes},
 	}
 	createdAt := s.opt.Now()
 	ctx, cancel := context.WithTimeout(c.Request.Context(), s.opt.CheckTimeout)
