@@ -617,6 +617,9 @@ func (r *run) check(i int, el *Element) {
 	}
 	r.gov[i] = int32(gov)
 	el.Verdict = floor.Worse(govV)
+	if r.opt.Scope == "full" {
+		el.GoverningUtilisation = governingUtilisation(el.Combinations)
+	}
 	if gov >= 0 {
 		el.GoverningCombination = r.combos[gov]
 	}
@@ -628,6 +631,20 @@ func (r *run) check(i int, el *Element) {
 	if r.level != traceNone && !r.opt.TraceOnDemand {
 		el.Trace = r.keepSteps(r.tr.steps)
 	}
+}
+
+// governingUtilisation is the largest utilisation of the capacity checks of
+// all combinations (Null when there is none).
+func governingUtilisation(cs []CombinationResult) Num {
+	u := math.NaN()
+	for c := range cs {
+		for k := range cs[c].Capacity {
+			if x := cs[c].Capacity[k].Utilisation.F(); x > u || (math.IsNaN(u) && !math.IsNaN(x)) {
+				u = x
+			}
+		}
+	}
+	return Num(u)
 }
 
 func nanToInf(x float64) float64 {

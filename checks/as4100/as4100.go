@@ -5,6 +5,12 @@
 // which a second-order analysis is required (delta_m > 1.4, 4.4.1.2 in the
 // 2020 text).
 //
+// With scope full it adds the member capacity checks (see Capacity): the
+// form factor and compression capacity (Section 6), the tension capacity
+// (7.2), the section moment capacity (5.2), lateral-torsional buckling
+// (5.6.1) and the combined-action checks of Section 8 with the amplified
+// moments, each with its utilisation.
+//
 // Clause numbers follow AS 4100:2020 where the two editions differ; the
 // storey formula of 4.7.2.2 is not confirmed against the text, so the lower
 // (safe) of the two candidate forms is used. A standard that follows AS 4100
@@ -13,7 +19,6 @@
 package as4100
 
 import (
-	"errors"
 	"math"
 	"strconv"
 
@@ -91,6 +96,14 @@ type Rules struct {
 	q     [2]quantities
 	notes [nNotes]string
 
+	// Capacity labels and notes (scope full).
+	cc      capClauses
+	cq      [2]capQuantities
+	cnotes  [nCapNotes]string
+	abNotes [nAlphaB]string
+	gNotes  []string
+	pNotes  [5]string
+
 	msgUnstableMember string
 	msgLimitSuffix    string
 	msgSwayLimit      string
@@ -122,6 +135,7 @@ func NewVariant(v Variant) *Rules {
 	r.msgUnstableMember = "N* ≥ N_omb: the member buckles between its ends (" + c.Nom + ")"
 	r.msgLimitSuffix = " > 1.4: amplification of first-order moments is not permitted; a second-order analysis is required (" + c.Limit + ")"
 	r.msgSwayLimit = " > 1.4 with no moment about this axis: the storey is too sway-sensitive for amplification; a second-order analysis is required (" + c.Limit + ")"
+	r.initCapacity()
 	return r
 }
 
@@ -134,15 +148,9 @@ func (r *Rules) Title() string { return r.v.Title }
 // Clauses returns the rule set's clause labels.
 func (r *Rules) Clauses() Clauses { return r.v.Clauses }
 
-// ErrScopeFull is returned by Begin for --scope full: member capacity checks
-// are not implemented yet.
-var ErrScopeFull = errors.New("scope full (member capacity checks) is not implemented yet: use scope stability")
-
-// Begin implements checks.RuleSet.
+// Begin implements checks.RuleSet. With scope full it adds the
+// assumptions of the member capacity checks.
 func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
-	if opt.Scope == "full" {
-		return nil, &scopeError{name: r.v.Name}
-	}
 	c := &r.v.Clauses
 	var as []string
 	if opt.SwayMethod == "" || opt.SwayMethod == "storey" {
@@ -159,13 +167,11 @@ func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
 		}
 		as = append(as, more...)
 	}
+	if opt.Scope == "full" {
+		as = append(as, r.capacityAssumptions()...)
+	}
 	return as, nil
 }
-
-type scopeError struct{ name string }
-
-func (e *scopeError) Error() string { return e.name + ": " + ErrScopeFull.Error() }
-func (e *scopeError) Unwrap() error { return ErrScopeFull }
 
 // Modulus implements checks.RuleSet.
 func (r *Rules) Modulus() (float64, string) { return Modulus, r.v.Clauses.Modulus }
@@ -201,6 +207,10 @@ func (r *Rules) Member(mc *checks.MemberContext, tr *checks.Tracer) {
 				Add("E", mc.E, "MPa").Add("I", s.I, "mm⁴").Add("k_eb", s.BracedKe, "").Add("L", s.Length, "mm").
 				Noted(r.notes[noteBracedKe])
 		}
+	}
+	if tr.On() && mc.Options.Scope == "full" {
+		sc := scratchOf(mc)
+		r.memberCapacity(mc, &sc.cap, sc, tr)
 	}
 }
 
@@ -246,10 +256,6 @@ func Cm(betaM float64) float64 { return math.Min(1, 0.6-0.4*betaM) }
 
 // Exceeds reports whether an amplification factor is above DeltaLimit.
 func Exceeds(delta float64) bool { return delta > DeltaLimit*(1+limitTolerance) }
-
-// Capacity implements checks.RuleSet. The member capacity checks (Sections
-// 6 and 8) are not implemented yet; Begin refuses scope full.
-func (r *Rules) Capacity(*checks.CombinationContext, *checks.CombinationResult, *checks.Tracer) {}
 
 // numMsg builds prefix + x (3 decimals) + suffix with one allocation.
 func numMsg(prefix string, x float64, suffix string) string {

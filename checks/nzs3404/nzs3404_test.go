@@ -186,7 +186,7 @@ func TestTableInTrace(t *testing.T) {
 	}
 }
 
-// TestOptions: unknown provisions and scope full are usage errors.
+// TestOptions: unknown provisions are a usage error; scope full is accepted.
 func TestOptions(t *testing.T) {
 	m := &checks.Model{Members: []checks.Member{swayColumn("S", "", 6)}, Combinations: []string{"ULS"}}
 	opt := checks.DefaultOptions()
@@ -194,9 +194,56 @@ func TestOptions(t *testing.T) {
 	if _, err := checks.Run(m, nzs3404.New(), opt); !errors.Is(err, nzs3404.ErrProvisions) {
 		t.Errorf("err %v", err)
 	}
+	// Scope full is accepted: the capacity checks are AS 4100's.
 	opt = checks.DefaultOptions()
 	opt.Scope = "full"
-	if _, err := checks.Run(m, nzs3404.New(), opt); !errors.Is(err, as4100.ErrScopeFull) {
+	if _, err := checks.Run(m, nzs3404.New(), opt); err != nil {
 		t.Errorf("err %v", err)
+	}
+}
+
+// TestCapacityFull: NZS 3404 carries the AS 4100 capacity checks (its
+// Sections 5, 6 and 8 follow AS 4100) under its own clause labels.
+// source: standards-notes §2 [L] (NZS 3404 follows AS 4100; the column curve is the same formula set)
+func TestCapacityFull(t *testing.T) {
+	p, err := section.ISection{Name: "310UC96.8", B: 305, D: 308, Tw: 9.9, Tf: 15.4, R: 16.5}.Properties() // source: sections.md
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := checks.Member{GlobalID: "C", Length: 4000, Section: &p,
+		Material: checks.Material{E: e, Grade: "300", Source: "model"},
+		Axes:     [2]checks.AxisInput{{Restraint: checks.Braced, Ke: 1}, {Restraint: checks.Braced, Ke: 1}},
+		Actions: []checks.Actions{{Combination: "ULS", NStar: 900e3,
+			Moments: [2]checks.AxisMoments{{Start: 120e6, End: -60e6}, {Start: 10e6, End: 10e6}}}}}
+	mod := &checks.Model{Members: []checks.Member{m}, Combinations: []string{"ULS"}}
+	opt := checks.DefaultOptions()
+	opt.Scope = "full"
+	nz, err := checks.Run(mod, nzs3404.New(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	au, err := checks.Run(mod, as4100.New(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, b := au.Elements[0].Combinations[0].Capacity, nz.Elements[0].Combinations[0].Capacity
+	if len(a) != 10 || len(b) != len(a) {
+		t.Fatalf("checks: %d AS 4100, %d NZS 3404", len(a), len(b))
+	}
+	for k := range a {
+		if a[k].Name != b[k].Name || a[k].Utilisation != b[k].Utilisation {
+			t.Errorf("%s: %v, AS 4100 %v", b[k].Name, b[k].Utilisation, a[k].Utilisation)
+		}
+		if !strings.HasPrefix(b[k].Clause, "NZS 3404 ") {
+			t.Errorf("%s: clause %q", b[k].Name, b[k].Clause)
+		}
+	}
+	if u := nz.Elements[0].GoverningUtilisation; !u.Known() || u != au.Elements[0].GoverningUtilisation {
+		t.Errorf("governing utilisation %v", u)
+	}
+	for _, s := range nz.Elements[0].Trace {
+		if s.Quantity == "k_f" && !strings.Contains(s.Note, "NZS 3404 clause numbers follow AS 4100") {
+			t.Errorf("k_f note %q", s.Note)
+		}
 	}
 }
