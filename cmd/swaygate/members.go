@@ -2,6 +2,7 @@ package main
 
 import (
 	"bufio"
+	"context"
 	"strings"
 	"time"
 
@@ -9,7 +10,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"swaygate/checks"
-	"swaygate/ifcstep/ifc"
+	"swaygate/internal/pipeline"
 	"swaygate/reports"
 )
 
@@ -21,6 +22,7 @@ type membersFlags struct {
 	loadCases  bool
 	convention string
 	units      string
+	standard   string
 }
 
 func newMembersCmd() *cobra.Command {
@@ -35,18 +37,26 @@ func newMembersCmd() *cobra.Command {
 			"cannot be read.",
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			opt, err := fl.options()
+			types, err := parseInclude(fl.include)
 			if err != nil {
-				return err
+				return &exitError{code: exitUsage, msg: strings.Replace(err.Error(), "swaygate check:", "swaygate members:", 1)}
 			}
 			switch fl.format {
 			case "json", "text":
 			default:
 				return &exitError{code: exitUsage, msg: "swaygate members: unknown --format " + quoteArg(fl.format) + " (want json or text)"}
 			}
-			lm, err := loadModel(args[0], fl.actions, opt)
+			// The same reading and extraction as check (internal/pipeline).
+			lm, err := pipeline.Load(context.Background(), pipeline.Request{
+				ModelPath:   args[0],
+				ActionsPath: fl.actions,
+				Include:     types,
+				LoadCases:   fl.loadCases,
+				Convention:  fl.convention,
+				Options:     checks.Options{Standard: fl.standard},
+			})
 			if err != nil {
-				return err
+				return checkError(err)
 			}
 			run := reports.Run{
 				RunID:       uuid.NewString(),
@@ -78,30 +88,8 @@ func newMembersCmd() *cobra.Command {
 	f.BoolVar(&fl.loadCases, "load-cases", false, "also check the results of bare (unfactored) load cases")
 	f.StringVar(&fl.convention, "sign-convention", "auto", "sign convention of the model's member results: auto, section-forces or end-forces")
 	f.StringVar(&fl.units, "units", "si", "display units of the text format: si or us")
+	f.StringVar(&fl.standard, "standard", "", "design standard whose idealised ke table turns Swaygate_ColumnDesign end conditions into ke (default AS 4100)")
 	return cmd
-}
-
-// options turns the flags into extraction options.
-func (fl *membersFlags) options() (ifc.Options, error) {
-	var opt ifc.Options
-	for _, inc := range fl.include {
-		kind, types, ok := strings.Cut(inc, ":")
-		if !ok || !strings.EqualFold(kind, "member") || types == "" {
-			return opt, &exitError{code: exitUsage, msg: "swaygate: --include " + quoteArg(inc) + ": want member:TYPE[,TYPE...], e.g. member:POST,STRUT"}
-		}
-		for _, t := range strings.Split(types, ",") {
-			if t = strings.ToUpper(strings.TrimSpace(t)); t != "" {
-				opt.MemberTypes = append(opt.MemberTypes, t)
-			}
-		}
-	}
-	c, err := ifc.ParseSignConvention(fl.convention)
-	if err != nil {
-		return opt, &exitError{code: exitUsage, msg: "swaygate: --sign-convention: " + strings.TrimPrefix(err.Error(), "ifc: ")}
-	}
-	opt.Convention = c
-	opt.LoadCases = fl.loadCases
-	return opt, nil
 }
 
 func quoteArg(s string) string { return "\"" + s + "\"" }
