@@ -313,7 +313,7 @@ func TestCheckStoreyFile(t *testing.T) {
 	var r struct {
 		Storeys []struct {
 			Name, Direction, Combination, Form string
-			LambdaC                           float64 `json:"lambda_c"`
+			LambdaC                            float64 `json:"lambda_c"`
 		}
 	}
 	if err := json.Unmarshal([]byte(out), &r); err != nil {
