@@ -11,20 +11,17 @@
 // row by row on an nx × ny grid: grid lines A, B, ... along X and 1, 2, ...
 // along Y.
 //
-// Lateral load is resisted by perimeter moment frames:
-//   - columns on grid lines 1 and the last (constant y) belong to the frames
-//     resisting sway in X: they are rotated 90° (RefDirection along global Y)
-//     so that major-axis bending sways them in X; SwayMajor = true,
-//     SwayMinor = false;
-//   - the other columns on lines A and the last (constant x) belong to the
-//     frames resisting sway in Y: unrotated, SwayMajor = true, SwayMinor =
-//     false;
-//   - interior columns are braced in both directions (SwayMajor = SwayMinor =
-//     false, ke = 1.0; they lean on the frames).
+// Lateral load is resisted by moment frames on every grid line: the frame
+// columns are rotated 90° (RefDirection along global Y) so that major-axis
+// bending sways them in X and minor-axis bending in Y, and they are sway
+// members about both axes (SwayMajor = SwayMinor = true). Every third
+// interior column (grid positions 1, 4, 7, ... in both directions) is a
+// gravity column braced in both directions (ke = 1.0) that leans on the
+// frames.
 //
-// Sway ke is 1.2 to 1.5 (chosen per column); frame columns have fixed bases,
+// Sway ke is 1.2 to 1.5 (chosen per column and axis); frame columns have fixed bases,
 // interior ones pinned. Sections are picked by the gravity load: universal
-// columns and HE sizes (310UC137, HE-300-B, 250UC89.5, HE-260-A, HE-200-B,
+// columns and HE sizes (HE-400-B, 310UC137, HE-300-B, 250UC89.5, HE-260-A, HE-200-B,
 // HE-200-A) as IfcIShapeProfileDef, and some light interior columns as a
 // 200x200x9.0 SHS (IfcRectangleHollowProfileDef); steel grades S355 and
 // S355J2H (IfcMaterial Category 'Steel'), each column associated through
@@ -129,6 +126,7 @@ type profile struct {
 // sizes from the same page (EU tables), and the SHS of the demo model.
 func sections() []*profile {
 	return []*profile{
+		{name: "HE400B", b: 300, d: 400, tw: 13.5, tf: 24, r: 27, grade: "S355"},
 		{name: "310UC137", b: 309, d: 321, tw: 13.8, tf: 21.7, r: 16.5, grade: "S355"},
 		{name: "HE300B", b: 300, d: 300, tw: 11, tf: 19, r: 27, grade: "S355"},
 		{name: "250UC89.5", b: 256, d: 260, tw: 10.5, tf: 17.3, r: 14, grade: "S355"},
@@ -152,11 +150,13 @@ func pickSection(ps []*profile, n float64, interior bool, rng *rand.Rand) *profi
 	case kn > 800:
 		return ps[3]
 	case interior && rng.IntN(4) == 0:
-		return ps[6]
+		return ps[7]
 	case kn > 450:
 		return ps[4]
+	case kn > 250:
+		return ps[5]
 	}
-	return ps[5]
+	return ps[6]
 }
 
 type gen struct {
@@ -411,9 +411,13 @@ func (g *gen) storeyColumns(st int) {
 	var ids []int
 	for pos := 0; pos < g.perStory[st]; pos++ {
 		gx, gy := pos%g.nx, pos/g.nx
-		frameX := gy == 0 || gy == g.ny-1
-		frameY := !frameX && (gx == 0 || gx == g.nx-1)
-		interior := !frameX && !frameY
+		// Moment frames on every grid line: columns are rotated so that
+		// their strong axis resists sway in X and their weak axis sways in
+		// Y; every third interior column is a gravity column that leans on
+		// the frames.
+		interior := gx%3 == 1 && gy%3 == 1 && gx != g.nx-1 && gy != g.ny-1
+		frameX := !interior
+		frameY := false
 		fx, fy := 1.0, 1.0
 		if gx == 0 || gx == g.nx-1 {
 			fx = 0.5
@@ -425,7 +429,9 @@ func (g *gen) storeyColumns(st int) {
 		nGrav := pFloor * float64(S-st) * (0.95 + 0.1*g.rng.Float64())
 		prof := pickSection(g.profiles, nGrav, interior, g.rng)
 		x, y := float64(gx)*bay, float64(gy)*bay
-		rotated := frameX
+		// Alternate the orientation so that each direction has strong and
+		// weak axes in its frames.
+		rotated := frameX && (gx+gy)%2 == 0
 
 		pt := s.begin("IFCCARTESIANPOINT")
 		s.reals(x, y, 0).end()
@@ -458,6 +464,7 @@ func (g *gen) storeyColumns(st int) {
 		keMaj, keMin := 1.0, 1.0
 		if !interior {
 			keMaj = []float64{1.2, 1.3, 1.4, 1.5}[g.rng.IntN(4)]
+			keMin = []float64{1.2, 1.3, 1.4, 1.5}[g.rng.IntN(4)]
 		}
 		p1 := s.begin("IFCPROPERTYSINGLEVALUE")
 		s.str("EffectiveLengthFactorMajor").unset().typedReal("IFCPOSITIVERATIOMEASURE", keMaj).unset().end()
@@ -466,7 +473,7 @@ func (g *gen) storeyColumns(st int) {
 		p3 := s.begin("IFCPROPERTYSINGLEVALUE")
 		s.str("SwayMajor").unset().typedBool("IFCBOOLEAN", !interior).unset().end()
 		p4 := s.begin("IFCPROPERTYSINGLEVALUE")
-		s.str("SwayMinor").unset().typedBool("IFCBOOLEAN", false).unset().end()
+		s.str("SwayMinor").unset().typedBool("IFCBOOLEAN", !interior).unset().end()
 		ps := s.begin("IFCPROPERTYSET")
 		s.str(g.newGID()).unset().str("Swaygate_ColumnDesign").unset().refs(p1, p2, p3, p4).end()
 		s.begin("IFCRELDEFINESBYPROPERTIES")

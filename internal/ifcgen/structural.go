@@ -141,8 +141,14 @@ func (g *gen) actions(c *colRec, k int, sumN float64, nFrameX int) (n, maj0, maj
 		}
 		v := 0.025 * sumN / float64(nFrameX) * c.vary[3]
 		m := v * c.h / 2
-		maj0 -= m
-		maj1 += m
+		// The axis that sways in X: major for rotated columns, else minor.
+		if c.rotated {
+			maj0 -= m
+			maj1 += m
+		} else {
+			min0 -= m
+			min1 += m
+		}
 	}
 	return n, maj0, maj1, min0, min1
 }
