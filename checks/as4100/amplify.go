@@ -95,6 +95,7 @@ func noteText() [nNotes]string {
 const (
 	msgNotInCompression = "N* ≤ 0: no member buckling check, delta_b = 1"
 	msgNoMomentBraced   = "no moment about this axis: nothing to amplify (member compression capacity is not part of the stability scope)"
+	msgNoMomentFull     = "no moment about this axis: nothing to amplify (the member's compression capacity is among the capacity checks)"
 	msgNoMomentSway     = "no moment about this axis: the 1.4 limit applies to the storey's delta_s only"
 	msgInteriorUnknown  = "a transverse load acts between the ends but only end moments are known: M*_m cannot be found"
 )
@@ -262,6 +263,8 @@ func (r *Rules) Amplify(cx *checks.AxisContext, out *checks.AxisResult, tr *chec
 		if Exceeds(deltaS) {
 			cx.Reason(checks.CodeSecondOrderRequired, numMsg("delta_s = ", deltaS, r.msgSwayLimit))
 		}
+	case opt.Scope == "full":
+		cx.Reason(checks.CodeNoMoment, msgNoMomentFull)
 	default:
 		cx.Reason(checks.CodeNoMoment, msgNoMomentBraced)
 	}

@@ -269,6 +269,16 @@ func TestCapacityVerdicts(t *testing.T) {
 		{"angle with a major moment", func(t *testing.T) checks.Member {
 			return capMember(t, "H", section.Angle{B: 100, D: 100, T: 8, R: 8}, "", 300, 2000, axial(50, 1, 1, 0, 0))
 		}, nil, checks.NeedsAnalysis, checks.CodeUnsupportedProfile, "lateral-torsional"},
+		{"no plastic modulus, with a moment", func(t *testing.T) checks.Member {
+			m := capMember(t, "J", uc, "", 300, 4000, axial(200, 50, 50, 0, 0))
+			m.Section.SMajor = math.NaN()
+			return m
+		}, nil, checks.NeedsAnalysis, checks.CodeMissingSection, "section modulus"},
+		{"no area", func(t *testing.T) checks.Member {
+			m := capMember(t, "K", uc, "", 300, 4000, axial(200, 0, 0, 0, 0))
+			m.Section.A = math.NaN()
+			return m
+		}, nil, checks.NeedsAnalysis, checks.CodeMissingSection, "area"},
 		{"tension with moment", func(t *testing.T) checks.Member {
 			return capMember(t, "I", uc, "", 300, 4000, axial(-1000, 500, 500, 0, 0))
 		}, nil, checks.Fail, checks.CodeCapacityExceeded, "section-major"},
