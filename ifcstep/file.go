@@ -88,6 +88,10 @@ func (l Limits) withDefaults() Limits {
 type Options struct {
 	Limits  Limits // zero fields take the defaults of DefaultLimits
 	Workers int    // goroutines for indexing; 0 = runtime.GOMAXPROCS(0)
+	// Name is the file's name in messages and File.Name when ReadFile reads
+	// a path that should not be shown (a temporary upload, say); default:
+	// the path.
+	Name string
 
 	chunkSize int // tests: split the data section into chunks of about this many bytes
 }

@@ -22,16 +22,20 @@ import (
 // not be truncated or rewritten while the File is in use, and the mapping is
 // released once the File, its Instances and Values are no longer reachable.
 // Slices returned by Value.Raw are valid only while one of those is.
-func ReadFile(name string, opt Options) (*File, error) {
+func ReadFile(path string, opt Options) (*File, error) {
 	lim := opt.Limits.withDefaults()
-	fh, err := os.Open(name)
+	name := path
+	if opt.Name != "" {
+		name = opt.Name
+	}
+	fh, err := os.Open(path)
 	if err != nil {
-		return nil, fmt.Errorf("ifcstep: %w", err)
+		return nil, fmt.Errorf("ifcstep: %s: %w", name, pathless(err))
 	}
 	defer fh.Close()
 	st, err := fh.Stat()
 	if err != nil {
-		return nil, fmt.Errorf("ifcstep: %w", err)
+		return nil, fmt.Errorf("ifcstep: %s: %w", name, pathless(err))
 	}
 	if !st.Mode().IsRegular() { // a pipe or a device: read as a stream
 		return readStream(fh, name, opt, lim)
@@ -39,7 +43,7 @@ func ReadFile(name string, opt Options) (*File, error) {
 	var magic [4]byte
 	n, _ := io.ReadFull(fh, magic[:])
 	if _, err := fh.Seek(0, io.SeekStart); err != nil {
-		return nil, fmt.Errorf("ifcstep: %w", err)
+		return nil, fmt.Errorf("ifcstep: %s: %w", name, pathless(err))
 	}
 	switch {
 	case isZip(magic[:n]):
@@ -156,3 +160,13 @@ func limitErr(name string, max int64) *Error {
 
 func isGzip(m []byte) bool { return len(m) >= 2 && m[0] == 0x1f && m[1] == 0x8b }
 func isZip(m []byte) bool  { return len(m) >= 4 && string(m[:4]) == "PK\x03\x04" }
+
+// pathless drops the path from an *os.PathError, so that a display name can
+// stand in for it.
+func pathless(err error) error {
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		return pe.Err
+	}
+	return err
+}

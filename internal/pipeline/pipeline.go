@@ -83,9 +83,11 @@ type Loaded struct {
 // without checking them. The model's SHA-256 is computed on another
 // goroutine while it is parsed.
 func Load(ctx context.Context, req Request) (*Loaded, error) {
-	name := req.Name
+	// The report names the model by its display name (default: the file's
+	// base name); messages by the display name or the path as given.
+	name, msgName := req.Name, req.Name
 	if name == "" {
-		name = filepath.Base(req.ModelPath)
+		name, msgName = filepath.Base(req.ModelPath), req.ModelPath
 	}
 	type hashed struct {
 		sum string
@@ -132,7 +134,7 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 	if ropt.Limits == (ifcstep.Limits{}) {
 		ropt.Limits = ifcstep.DefaultLimits()
 	}
-	f, err := readModel(req.ModelPath, name, ropt)
+	f, err := readModel(req.ModelPath, msgName, ropt)
 	h := <-hc
 	if err != nil {
 		return nil, err
@@ -163,6 +165,7 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		}
 		m.StoreyData = append(m.StoreyData, rows...)
 	}
+	f.Name = name
 	return &Loaded{
 		File:  f,
 		Model: m,
@@ -170,21 +173,11 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 	}, nil
 }
 
-// readModel reads the model file, naming it in messages by its display name.
+// readModel reads (memory-maps) the model file, naming it in messages by its
+// display name so that a server's temporary paths never show.
 func readModel(path, name string, opt ifcstep.Options) (*ifcstep.File, error) {
-	if name == filepath.Base(path) {
-		f, err := ifcstep.ReadFile(path, opt)
-		if err == nil {
-			f.Name = name
-		}
-		return f, err
-	}
-	fh, err := os.Open(path)
-	if err != nil {
-		return nil, err
-	}
-	defer fh.Close()
-	return ifcstep.Read(fh, name, opt)
+	opt.Name = name
+	return ifcstep.ReadFile(path, opt)
 }
 
 // Check runs req. Errors the user caused are returned as the positioned
