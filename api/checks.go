@@ -40,11 +40,18 @@ type checkParams struct {
 	project    string
 	units      string
 	name       string
+
+	nzsProvisions string
+	aiscMethod    string
+	include       []string
+	loadCases     bool
+	convention    string
 }
 
 // checkParamNames are the accepted query parameters; any other is a 400, so
 // that a misspelt option is not silently ignored.
-var checkParamNames = []string{"standard", "sway_method", "scope", "trace", "gate", "project", "units", "name"}
+var checkParamNames = []string{"standard", "sway_method", "scope", "trace", "gate", "project", "units", "name",
+	"nzs_provisions", "aisc_method", "include", "load_cases", "sign_convention"}
 
 // parseCheckParams reads and checks the query before any upload is read.
 // The engine checks the options again (checks.ErrOption).
@@ -67,6 +74,31 @@ func parseCheckParams(q url.Values) (checkParams, error) {
 		project:    q.Get("project"),
 		units:      q.Get("units"),
 		name:       q.Get("name"),
+
+		nzsProvisions: q.Get("nzs_provisions"),
+		aiscMethod:    q.Get("aisc_method"),
+		convention:    q.Get("sign_convention"),
+	}
+	for _, t := range strings.Split(q.Get("include"), ",") {
+		if t = strings.ToUpper(strings.TrimSpace(t)); t != "" {
+			p.include = append(p.include, t)
+		}
+	}
+	switch lc := q.Get("load_cases"); lc {
+	case "", "false":
+	case "true":
+		p.loadCases = true
+	default:
+		return p, invalidParam("load_cases", lc, []string{"true", "false"})
+	}
+	if err := oneOf("nzs_provisions", p.nzsProvisions, "default", "quoted"); err != nil {
+		return p, err
+	}
+	if err := oneOf("aisc_method", p.aiscMethod, "lrfd", "asd"); err != nil {
+		return p, err
+	}
+	if err := oneOf("sign_convention", p.convention, "auto", "section-forces", "end-forces"); err != nil {
+		return p, err
 	}
 	if p.standard != "" {
 		if _, err := standards.Lookup(p.standard); err != nil {
@@ -182,12 +214,23 @@ func (s *Server) createCheck(c *gin.Context) (reply, error) {
 	if p.trace != "" {
 		opts.Trace = p.trace
 	}
+	if p.nzsProvisions != "" {
+		opts.NZSProvisions = p.nzsProvisions
+	}
+	if p.aiscMethod != "" {
+		opts.AISCMethod = p.aiscMethod
+	}
 	req := pipeline.Request{
 		ModelPath:   up.modelPath,
 		Name:        up.modelName,
 		ActionsPath: up.actionsPath,
 		ActionsName: up.actionsName,
+		StoreysPath: up.storeysPath,
+		StoreysName: up.storeysName,
 		Options:     opts,
+		Include:     p.include,
+		LoadCases:   p.loadCases,
+		Convention:  p.convention,
 		Gate:        p.gate,
 		Project:     p.project,
 		Units:       p.units,

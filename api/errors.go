@@ -146,13 +146,15 @@ func displayName(file string, req *pipeline.Request) string {
 		return req.Name
 	case req.ActionsPath:
 		return req.ActionsName
+	case req.StoreysPath:
+		return req.StoreysName
 	}
 	return file
 }
 
 // hidePaths replaces the uploaded files' paths in msg by their display names.
 func hidePaths(msg string, req *pipeline.Request) string {
-	for _, p := range [][2]string{{req.ModelPath, req.Name}, {req.ActionsPath, req.ActionsName}} {
+	for _, p := range [][2]string{{req.ModelPath, req.Name}, {req.ActionsPath, req.ActionsName}, {req.StoreysPath, req.StoreysName}} {
 		if p[0] != "" {
 			msg = strings.ReplaceAll(msg, p[0], p[1])
 		}

@@ -761,3 +761,23 @@ func TestNewOptions(t *testing.T) {
 		t.Errorf("tmp after New: %v", ents)
 	}
 }
+
+// TestPostOptionsReachThePipeline: the extraction and standard options of
+// POST /v1/checks are passed to the check; bad values are 400.
+func TestPostOptionsReachThePipeline(t *testing.T) {
+	env := newTestEnv(t, nil)
+	rec := env.post("standard=aisc360&aisc_method=asd&nzs_provisions=quoted&include=post,Strut&load_cases=true&sign_convention=end-forces", fakeModel)
+	if rec.Code != 201 {
+		t.Fatalf("status %d: %s", rec.Code, rec.Body.String())
+	}
+	req := env.fake.lastRequest()
+	if req.Options.AISCMethod != "asd" || req.Options.NZSProvisions != "quoted" || !req.LoadCases ||
+		req.Convention != "end-forces" || strings.Join(req.Include, ",") != "POST,STRUT" {
+		t.Errorf("request %+v", req)
+	}
+	for _, q := range []string{"load_cases=yes", "aisc_method=lsd", "sign_convention=both", "nzs_provisions=new"} {
+		if rec := env.post(q, fakeModel); rec.Code != 400 {
+			t.Errorf("%s: status %d, want 400", q, rec.Code)
+		}
+	}
+}

@@ -31,6 +31,8 @@ type upload struct {
 	modelSize   int64
 	actionsPath string
 	actionsName string
+	storeysPath string
+	storeysName string
 }
 
 // remove deletes the upload's folder.
@@ -122,7 +124,7 @@ func (s *Server) receive(c *gin.Context, name string) (*upload, error) {
 	return u, nil
 }
 
-// receiveMultipart saves the parts "model" and "actions".
+// receiveMultipart saves the parts "model", "actions" and "storeys".
 func receiveMultipart(body io.Reader, boundary, name string, u *upload, limit int64) error {
 	if boundary == "" {
 		return newError(http.StatusBadRequest, codeInvalidMultipart, "multipart/form-data without a boundary")
@@ -157,9 +159,19 @@ func receiveMultipart(body io.Reader, boundary, name string, u *upload, limit in
 			if err == nil {
 				u.actionsPath, err = withActionsExt(u.actionsPath)
 			}
+		case "storeys":
+			if u.storeysPath != "" {
+				return newError(http.StatusBadRequest, codeInvalidMultipart, "more than one part named storeys")
+			}
+			u.storeysName = cleanName(p.FileName(), "", "storeys.csv")
+			var n int64
+			u.storeysPath, n, err = saveFile(u.dir, p, u.storeysName, "storeys", limit)
+			if err == nil && n == 0 {
+				err = newError(http.StatusBadRequest, codeEmptyBody, "the storeys part is empty")
+			}
 		default:
 			return newError(http.StatusBadRequest, codeInvalidMultipart,
-				"unknown part "+strconv.Quote(field)+": the parts are model and actions")
+				"unknown part "+strconv.Quote(field)+": the parts are model, actions and storeys")
 		}
 		p.Close()
 		if err != nil {
