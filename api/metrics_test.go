@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"github.com/prometheus/client_golang/prometheus"
+	"github.com/prometheus/client_golang/prometheus/testutil"
 	"github.com/prometheus/client_golang/prometheus/testutil/promlint"
 )
 
@@ -94,6 +95,14 @@ func TestMetrics(t *testing.T) {
 	}
 	for _, p := range problems {
 		t.Errorf("promlint: %s: %s", p.Metric, p.Text)
+	}
+	// And the registry itself, through client_golang's test utilities.
+	regProblems, err := testutil.GatherAndLint(env.reg)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range regProblems {
+		t.Errorf("testutil lint: %s: %s", p.Metric, p.Text)
 	}
 
 	want := map[[2]string]float64{
