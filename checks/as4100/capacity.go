@@ -667,22 +667,29 @@ func (r *Rules) axisBending(m *memberCap, a int, plates []section.Plate, sec *se
 	ax.ms = math.NaN()
 	aboutX := m.majorX == (a == int(checks.Major))
 	worst := -1.0
+	var gov *section.Plate // the governing element
+	var depth float64      // RHS: outside dimension across the bending axis
 	for k := range plates {
 		p := &plates[k]
 		st := stressOf(m.fam, p.Part, aboutX)
 		if st == stressNone {
 			continue
 		}
+		if st == stressBending {
+			depth = p.Width + 2*p.Thickness
+		}
 		le := elementSlenderness(p, m.fy)
 		ep, ey := bendingLimits(p.Support, st, m.res)
 		if q := le / ey; q > worst {
-			worst = q
+			worst, gov = q, p
 			ax.lambdaS, ax.lambdaSP, ax.lambdaSY, ax.gov = le, ep, ey, p.Part
 			switch {
 			case p.Support == section.Ring:
 				ax.kind = slenderRing
 			case st == stressTip:
 				ax.kind = slenderTip
+			case m.fam == famRHS && st == stressUniform:
+				ax.kind = slenderBox
 			default:
 				ax.kind = slenderFlat
 			}
@@ -708,6 +715,17 @@ func (r *Rules) axisBending(m *memberCap, a int, plates []section.Plate, sec *se
 		ax.class = slender
 	}
 	ax.ze = effectiveModulus(ax.class, ax.kind, z, s, ax.lambdaS, ax.lambdaSP, ax.lambdaSY)
+	if ax.class == slender && ax.kind == slenderBox {
+		i := sec.IMajor
+		if a == int(checks.Minor) {
+			i = sec.IMinor
+		}
+		if ze := rhsEffectiveZ(i, sec.A, depth, gov.Width, gov.Thickness, ax.lambdaS, ax.lambdaSY); ze > 0 && depth > 0 {
+			ax.ze = ze
+		} else {
+			ax.kind = slenderFlat
+		}
+	}
 	ax.ms = m.fy * ax.ze
 
 	full := m.kf >= 1-1e-9
@@ -739,6 +757,8 @@ func (r *Rules) axisBending(m *memberCap, a int, plates []section.Plate, sec *se
 			formula = "Z (lambda_sy/lambda_s)^2"
 		case slenderRing:
 			formula = "Z min(sqrt(lambda_sy/lambda_s), (2 lambda_sy/lambda_s)^2)"
+		case slenderBox:
+			formula = "Z of the effective section: compression wall b_e = b lambda_sy/lambda_s"
 		default:
 			formula = "Z lambda_sy/lambda_s"
 		}
