@@ -994,7 +994,29 @@ func reportUnit(unit string) string {
 }
 
 // Capacity implements checks.RuleSet: the member capacity checks of one
-// combination (scope full) with the amplified moments of both axes.
+// combination (scope full) with the amplified moments M* of both axes
+// (AxisResult.MAmp).
+//
+// In compression (N* ≥ 0) the checks are, by name: section (N* ≤ φNs),
+// compression-major and compression-minor (N* ≤ φNc with the axis's ke),
+// section-major and section-minor (M* ≤ φMr, 8.3.2/8.3.3),
+// section-biaxial (8.3.4, general form), in-plane-major and in-plane-minor
+// (M* ≤ φMi, 8.4.2.2 general form), out-of-plane (M*x ≤ φMox, 8.4.4.1,
+// with Mb from 5.6.1.1) and member-biaxial (8.4.5.1). In tension: section
+// (N*t ≤ φNt), section-major, section-minor, section-biaxial, out-of-plane
+// and member-biaxial (8.4.5.2), without the benefit of tension. Demand
+// and capacity are in N or N·mm (the capacity includes φ); the
+// interactions have demand = the interaction value and capacity 1.
+//
+// A utilisation above 1 adds capacity-exceeded naming the check (+Inf
+// when the axial force leaves no moment capacity). A check that cannot be
+// made adds needs-analysis: missing-material (no fy), unsupported-profile
+// (no plate model, a cold-formed open section, lateral-torsional buckling
+// of a tee, angle or monosymmetric I under a major-axis moment),
+// missing-section (no area, no section modulus under a moment, no J or Iw
+// for lateral-torsional buckling). Values that are unknown for a reason
+// the engine already gives (restraint, length, second moment, an
+// unstable axis) skip their checks without a second reason.
 func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationResult, tr *checks.Tracer) {
 	mc := cx.Member
 	sc := scratchOf(mc)

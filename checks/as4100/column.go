@@ -110,8 +110,11 @@ func alphaBText() [nAlphaB]string {
 // _member_section_constant (both tables), the OneSteel DuraGal design
 // capacity tables (αb = −0.5 for C450L0 hollow sections, Table 6.3.3) and
 // standards-notes §6.3 [D] (αb = −0.5 reproduces SDH Example 6.2 with kf <
-// 1). [L] The branch for welded I sections with flanges over 40 mm is from
-// memory: "other sections", +1.0.
+// 1). [L] For cold-formed hollow sections with kf = 1 the Australian Tube
+// Mills tables (165.1×5.4 CHS C250L0) are reproduced with −0.5, not with
+// the −1.0 of hot-formed or stress-relieved tubes that one library uses for
+// every hollow section. The branch for welded I sections with flanges over
+// 40 mm is from memory: "other sections", +1.0.
 func memberSectionConstant(f family, welded bool, tf, kf float64) (float64, int) {
 	full := kf >= 1-1e-9
 	switch f {

@@ -15,6 +15,11 @@
 // every trace step that uses them says so. Clause labels are the commonly
 // cited NZS 3404 numbers where there are any, else the AS 4100 numbers; the
 // trace note says which.
+//
+// With scope full the member capacity checks are AS 4100's (Sections 5 to
+// 8 of NZS 3404 follow AS 4100: the same column curve, form factor and
+// combined-action checks), labelled with NZS 3404 clause numbers that
+// follow AS 4100's; every step says so.
 package nzs3404
 
 import (
