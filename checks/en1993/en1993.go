@@ -26,7 +26,6 @@
 package en1993
 
 import (
-	"errors"
 	"math"
 	"strconv"
 
@@ -63,10 +62,6 @@ const (
 // arithmetic (3 or 10) on the permitted side despite rounding.
 const thresholdTolerance = 1e-12
 
-// ErrScopeFull is returned by Begin for scope full: member capacity checks
-// (6.3) are not implemented yet.
-var ErrScopeFull = errors.New("en1993: scope full (member capacity checks) is not implemented yet: use scope stability")
-
 // Rules is the EN 1993-1-1 rule set. It holds no per-run state.
 type Rules struct {
 	q [2]quantities
@@ -92,9 +87,6 @@ func (r *Rules) Modulus() (float64, string) { return Modulus, clauseModulus }
 
 // Begin implements checks.RuleSet.
 func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
-	if opt.Scope == "full" {
-		return nil, ErrScopeFull
-	}
 	as := []string{
 		"EN 1993-1-1 elastic global analysis: second-order effects are neglected where alpha_cr ≥ 10 (" + clauseFirstOrder +
 			"), the sway moments are amplified by 1/(1 − 1/alpha_cr) where 3 ≤ alpha_cr < 10 (" + clauseAmplify +
@@ -105,6 +97,9 @@ func (r *Rules) Begin(opt *checks.Options) ([]string, error) {
 			"of vertical load, horizontal load and frame stiffness relative to the storey shear",
 		"EN 1993-1-1: braced axes take no global amplification (delta_m = 1); member imperfections and second-order effects " +
 			"within the member are covered by the member buckling check of " + clauseMember + ", which is outside the stability scope",
+	}
+	if opt.Scope == "full" {
+		as = append(as, capacityAssumptions()...)
 	}
 	switch opt.SwayMethod {
 	case "", "storey":
@@ -164,6 +159,9 @@ func (r *Rules) Member(mc *checks.MemberContext, tr *checks.Tracer) {
 				Noted(noteBracedMode)
 		}
 	}
+	if tr.On() && mc.Options.Scope == "full" {
+		r.memberCapacity(mc, scratchOf(mc), tr)
+	}
 }
 
 // StoreyLambda implements checks.RuleSet: the drift form (5.2.1(4)B) when
@@ -197,10 +195,6 @@ func FirstOrder(alpha float64) bool { return alpha >= FirstOrderFrom*(1-threshol
 // SecondOrderRequired reports whether alpha_cr is below the amplification
 // range (alpha_cr < 3, 5.2.2(5)B).
 func SecondOrderRequired(alpha float64) bool { return alpha < AmplifyFrom*(1-thresholdTolerance) }
-
-// Capacity implements checks.RuleSet. The member buckling checks of 6.3 are
-// the capacity scope's; Begin refuses scope full.
-func (r *Rules) Capacity(*checks.CombinationContext, *checks.CombinationResult, *checks.Tracer) {}
 
 // numMsg builds prefix + x (3 decimals) + suffix with one allocation.
 func numMsg(prefix string, x float64, suffix string) string {

@@ -1,7 +1,6 @@
 package en1993_test
 
 import (
-	"errors"
 	"math"
 	"testing"
 
@@ -285,9 +284,14 @@ func TestOptions(t *testing.T) {
 		}
 	}
 
+	// Scope full is accepted; a section without a plate model cannot be
+	// classified (EN 1993-1-1 Table 5.2), so the member needs analysis.
 	opt.Scope = "full"
-	if _, err := checks.Run(model(swayAlone(5)), en1993.New(), opt); !errors.Is(err, en1993.ErrScopeFull) {
-		t.Errorf("scope full: %v", err)
+	rep = run(t, model(swayAlone(5)), opt)
+	wantReason(t, &rep.Elements[0], checks.CodeUnsupportedProfile, "")
+	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
+	if !contains(rep.Assumptions, "gamma_M0 = gamma_M1 = 1.0") {
+		t.Errorf("no capacity assumption: %q", rep.Assumptions)
 	}
 
 	// Member method: alpha_cr of a storey column is its own N_cr/N_Ed.
