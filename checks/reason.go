@@ -64,6 +64,15 @@ const (
 	// CodeStoreyDataIgnored: a storey shear/drift row could not be used
 	// (run warning).
 	CodeStoreyDataIgnored = "storey-data-ignored"
+	// CodeFrameFallback: the sway method is frame but this member's axis is
+	// not covered by the analytical frame (not linked to it, out of the
+	// plane of a plane model, or the analysis failed): its lambda_c comes
+	// from the storey method instead.
+	CodeFrameFallback = "frame-fallback"
+	// CodeKeFromFrame: an axis's ke comes from the analytical frame (the
+	// end-restraint ratios or the buckling load factor); the message gives
+	// the values behind it.
+	CodeKeFromFrame = "ke-from-frame"
 )
 
 // codeVerdict maps each verdict-setting code to the verdict it sets. Codes not

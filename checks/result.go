@@ -26,6 +26,13 @@ type Options struct {
 	// Yield is fy where the model gives none (MPa; 0 = none).
 	Yield float64
 
+	// KeFrom says where the effective length factors come from (the
+	// pipeline fills the members' AxisInput.Ke before the run; the engine
+	// itself does not read it): "" or "auto" (the property set where it
+	// gives ke, else the end-restraint ratios of the analytical frame),
+	// "property-set", "restraint-ratios" or "buckling".
+	KeFrom string
+
 	// TraceOnDemand: Run leaves Element.Trace nil and a writer gets each
 	// element's steps from Report.AppendTrace, one element at a time. Use it
 	// for large models: a full trace holds about 170 steps of some 450 bytes
@@ -170,6 +177,32 @@ type FrameResult struct {
 	DOF          int
 	Combinations []FrameCombination
 	Notes        []string
+
+	// Name is the analysis model's name (or reference); Plane is true for a
+	// plane (IN_PLANE_LOADING_2D) model, whose plane has the normal
+	// PlaneNormal.
+	Name        string
+	Plane       bool
+	PlaneNormal [3]float64
+	// Members are the analytical members, their ends indexing the nodes
+	// of each combination's Mode (every Mode lists the nodes in the same
+	// order).
+	Members []FrameMember
+	// Governing is the combination with the lowest lambda_c ("" when none
+	// buckles).
+	Governing string
+	// Limitations lists the buckling modes the analysis cannot represent.
+	Limitations []string
+	// Covered counts the checked members (columns) idealised in the frame;
+	// FellBack the sway or leaning axes that took the storey method instead
+	// (frame-fallback).
+	Covered, FellBack int
+}
+
+// FrameMember is one analytical member of the frame.
+type FrameMember struct {
+	ID         string
+	Start, End int // indices into FrameCombination.Mode
 }
 
 // FrameCombination is the lowest buckling load factor of one combination.
@@ -178,6 +211,35 @@ type FrameCombination struct {
 	LambdaC Num
 	// Mode is the normalised buckled shape: per node, its id and translations.
 	Mode []ModeNode
+	// LambdaX and LambdaY are the load factors of the lowest modes that sway
+	// in global X and Y: the lambda_c of the axes swaying that way.
+	LambdaX, LambdaY Num
+	// Status: "buckles", "no-compression" (lambda_c infinite) or
+	// "no-positive-buckling" (only reversed loads would buckle the frame).
+	Status string
+	// Drivers are the members with the largest shares of the mode's
+	// second-order work, largest first: they drive the mode.
+	Drivers []ModeShare
+	// Storeys split the mode by level, bottom first (rising members only).
+	Storeys []ModeStorey
+	// Interior holds per member (FrameResult.Members) the normalised
+	// translations of its interior points from start to end, equally
+	// spaced (nil for a member of one element), for drawing the mode. It is
+	// not written to the JSON report.
+	Interior [][][3]float64
+}
+
+// ModeShare is one member's share of a mode.
+type ModeShare struct {
+	Member string
+	Share  float64
+}
+
+// ModeStorey is the part of a mode between two levels.
+type ModeStorey struct {
+	BottomZ, TopZ float64 // mm
+	Share         float64 // part of the mode's second-order work
+	Drift         float64 // largest inter-storey drift of the mode (per mm of height)
 }
 
 // ModeNode is one node of a buckled mode shape.

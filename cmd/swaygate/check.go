@@ -90,7 +90,7 @@ engineer and the local building code.`,
 	f.StringArrayVar(&fl.include, "include", nil, "also check IfcMember of these predefined types, e.g. member:POST,STRUT (member:* for all)")
 	f.BoolVar(&fl.loadCases, "load-cases", false, "also check the results of bare (unfactored) load cases")
 	f.StringVar(&fl.convention, "sign-convention", "auto", "sign convention of the model's member results: auto, section-forces or end-forces")
-	f.StringVar(&fl.keFrom, "ke-from", "property-set", "where ke comes from: property-set, restraint-ratios or buckling")
+	f.StringVar(&fl.keFrom, "ke-from", "auto", "where ke comes from: auto (the property set, else the analytical frame's restraint ratios), property-set, restraint-ratios or buckling")
 	f.StringVar(&fl.defaultBoth, "default-restraint", "", "restraint for both axes of columns without restraint data: ROLE[:KE[:BRACED_KE]], e.g. sway:1.2 or braced:1.0")
 	f.StringVar(&fl.defaultMajor, "default-major", "", "as --default-restraint, major axis only")
 	f.StringVar(&fl.defaultMinor, "default-minor", "", "as --default-restraint, minor axis only")
@@ -222,11 +222,11 @@ func (fl *checkFlags) options() (checks.Options, error) {
 	opt.Modulus = fl.modulus
 	opt.Yield = fl.yield
 	opt.TraceOnDemand = true
-	if fl.keFrom != "property-set" {
-		if fl.keFrom != "restraint-ratios" && fl.keFrom != "buckling" {
-			return opt, usage("unknown --ke-from %q (want property-set, restraint-ratios or buckling)", fl.keFrom)
-		}
-		return opt, usage("--ke-from %s needs the frame analysis, which is not available in this build", fl.keFrom)
+	switch fl.keFrom {
+	case "auto", "property-set", "restraint-ratios", "buckling":
+		opt.KeFrom = fl.keFrom
+	default:
+		return opt, usage("unknown --ke-from %q (want auto, property-set, restraint-ratios or buckling)", fl.keFrom)
 	}
 	for _, d := range []struct {
 		flag, value string

@@ -214,7 +214,7 @@ func Check(ctx context.Context, req Request) (*Result, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	rep, err := checks.Run(ld.Model, rs, opt)
+	rep, err := runChecks(ld, rs, opt, req)
 	if err != nil {
 		return nil, err
 	}
