@@ -19,6 +19,20 @@
 // A member fails (unstable) when alpha_cr ≤ 1 or when N_Ed reaches N_cr of
 // its braced (non-sway) buckling mode.
 //
+// With scope full (Capacity) a member must also be strong enough: its
+// section class (5.5.2, Table 5.2; Class 4 in compression with the
+// effective area of EN 1993-1-5 4.4, Class 4 in bending needs-analysis),
+// the flexural buckling resistance N_b,Rd per axis (6.3.1, curves of Table
+// 6.2), lateral-torsional buckling of I sections (6.3.2.2), the
+// cross-section by the linear sum of 6.2.1(7), and the member interaction
+// of 6.3.3 (6.61, 6.62) with the factors of Annex B and the amplified
+// moments. f_y comes from the model, the request, or a grade table
+// (material.go); each utilisation above 1 fails the member
+// (capacity-exceeded), a check that cannot be made needs analysis. The
+// checks are EN 1993-1-1 clauses [L] where standards-notes confirms them
+// and from memory [M] elsewhere (Annex B, C1, EN 1993-1-5 rho), as the
+// comments beside each formula say.
+//
 // The thresholds are the standard's recommended values; a National Annex
 // may change the plastic-analysis limit (15), which swaygate does not use.
 // Clause numbers are those of EN 1993-1-1:2005 (standards-notes §3; 5.2.1
