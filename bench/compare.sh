@@ -4,7 +4,10 @@
 #      if installed, else a loop of timed runs), against web-ifc 0.0.78
 #      OpenModel of the same file (bench/webifc/open.js);
 #   2. peak RSS (/usr/bin/time -v) of `swaygate scan` of a generated 300 MiB
-#      model, and of `swaygate version` as the baseline.
+#      model, and of `swaygate version` as the baseline;
+#   3. `swaygate check --format json --trace summary` of the same models,
+#      whole process after a warm-up run: time against web-ifc's open and
+#      peak RSS against the file size (design §8).
 # Models are generated into testdata/gen/ (git-ignored) on first use; web-ifc
 # is installed into bench/out/ (git-ignored). Set SKIP_LARGE=1 to skip the
 # 300 MiB model, RUNS to change the number of timed runs (default 10).
@@ -64,4 +67,31 @@ size,kib=int(sys.argv[1]),int(sys.argv[2])
 print('peak RSS swaygate scan %s (%d bytes): %d KiB = %.2fx the file size (target <= 1.5x)'%(sys.argv[3],size,kib,kib*1024/size))" "$size" "$scan300" "$m300"
   read -r l_min l_med < <(runs=3 timed_runs "$sg" scan "$m300")
   echo "swaygate scan $m300 (whole process, 3 runs): min ${l_min} ms, median ${l_med} ms"
+fi
+
+# 3. The whole check, JSON report with the summary trace, to /dev/null.
+chk() { "$sg" check "$1" --format json --trace summary -o /dev/null --progress never || [ $? -eq 1 ]; }
+chk "$m32" # warm-up
+read -r c_min c_med < <(timed_runs chk "$m32")
+echo "swaygate check --format json --trace summary $m32 (whole process, $runs runs): min ${c_min} ms, median ${c_med} ms"
+python3 -c "import sys
+s=float(sys.argv[1]); f,m=float(sys.argv[2]),float(sys.argv[3])
+print('ratio web-ifc open / swaygate check (median): first open %.1fx, warm median %.1fx  (target >= 4x)'%(f/s, m/s))" "$c_med" "$w_first" "$w_med"
+size32=$(stat -c %s "$m32")
+rss32=$(rss "$sg" check "$m32" --format json --trace summary -o /dev/null --progress never)
+python3 -c "import sys
+size,kib=int(sys.argv[1]),int(sys.argv[2])
+print('peak RSS swaygate check (32 MiB): %d KiB = %.2fx the file size; target <= 2x file + 30 MB = %d KiB'%(kib,kib*1024/size,(2*size+30e6)/1024))" "$size32" "$rss32"
+if [ -f "$m300" ]; then
+  chk "$m300"
+  read -r cl_min cl_med < <(runs=3 timed_runs chk "$m300")
+  echo "swaygate check --format json --trace summary $m300 (whole process, 3 runs): min ${cl_min} ms, median ${cl_med} ms"
+  rss300=$(rss "$sg" check "$m300" --format json --trace summary -o /dev/null --progress never)
+  python3 -c "import sys
+size,kib=int(sys.argv[1]),int(sys.argv[2])
+print('peak RSS swaygate check (300 MiB): %d KiB = %.2fx the file size (target <= 1.5x)'%(kib,kib*1024/size))" "$size" "$rss300"
+  if [ "${SKIP_WEBIFC_LARGE:-0}" != 1 ]; then
+    wl=$(node bench/webifc/open.js "$m300" 1)
+    echo "web-ifc 0.0.78 OpenModel $m300 (1 open): $wl"
+  fi
 fi
