@@ -69,19 +69,13 @@ func (x *extractor) assignActions() {
 
 	fromResults := map[string]bool{}
 	for i := range ms {
-		m, a := &ms[i], &x.aux[i]
-		if a.am != nil {
-			x.resultActions(m, a)
-		}
-		if len(m.Actions) > 0 {
-			for k := range m.Actions {
-				fromResults[m.Actions[k].Combination] = true
+		for k := range ms[i].Actions {
+			a := &ms[i].Actions[k]
+			if a.Source == "ifc-results" {
+				fromResults[a.Combination] = true
+			} else {
+				addCombo(a.Combination)
 			}
-			continue
-		}
-		x.psetActions(m, a)
-		for k := range m.Actions {
-			addCombo(m.Actions[k].Combination)
 		}
 	}
 	x.model.Combinations = combos
@@ -104,11 +98,26 @@ func (x *extractor) assignActions() {
 	}
 }
 
+// memberActions reads one member's actions from the model: its analysis
+// results, else its Swaygate_DesignActions.
+func (x *extractor) memberActions(m *checks.Member, a *memberAux) {
+	if a.am != nil {
+		x.resultActions(m, a)
+	}
+	if len(m.Actions) == 0 {
+		x.psetActions(m, a)
+	}
+}
+
 // resultActions reads the member's analysis results, one Actions per
 // checked result set.
 func (x *extractor) resultActions(m *checks.Member, a *memberAux) {
 	am := a.am
 	results := x.memberResults(am)
+	if len(results) > 0 && m.Actions == nil {
+		m.Actions = make([]checks.Actions, 0, len(results))
+	}
+	var sfb [8]sectionForce
 	for _, mr := range results {
 		name := mr.set.name
 		problem := func(code, msg string) {
@@ -159,10 +168,10 @@ func (x *extractor) resultActions(m *checks.Member, a *memberAux) {
 		var act checks.Actions
 		act.Combination, act.Theory, act.Source, act.Ref = name, mr.set.theory, "ifc-results", mr.ref
 		if !ambiguous {
-			act.NStar, act.Moments = diagram(toSectionForces(st, conv), a.phi, am.length)
+			act.NStar, act.Moments = diagram(appendSectionForces(sfb[:0], st, conv), a.phi, am.length)
 		} else {
-			n1, m1 := diagram(toSectionForces(st, ConventionSectionForces), a.phi, am.length)
-			n2, m2 := diagram(toSectionForces(st, ConventionEndForces), a.phi, am.length)
+			n1, m1 := diagram(appendSectionForces(sfb[:0], st, ConventionSectionForces), a.phi, am.length)
+			n2, m2 := diagram(appendSectionForces(sfb[:0], st, ConventionEndForces), a.phi, am.length)
 			act.NStar, act.Moments = math.Max(n1, n2), m1
 			for k := range act.Moments {
 				mo := &act.Moments[k]
@@ -194,7 +203,7 @@ func toLocal(st []station, am *analyticalMember) []station {
 func (x *extractor) psetActions(m *checks.Member, a *memberAux) {
 	var set ifcstep.Instance
 	for _, s := range a.psets.occ {
-		if s.Type() == "IFCPROPERTYSET" && strings.EqualFold(psetName(s), psetDesignActions) {
+		if s.Type() == "IFCPROPERTYSET" && psetIs(s, psetDesignActions) {
 			set = s
 			break
 		}

@@ -2,7 +2,6 @@ package ifc
 
 import (
 	"math"
-	"sort"
 	"strings"
 
 	"swaygate/checks"
@@ -40,8 +39,10 @@ func (x *extractor) analyticalMember(id uint32) *analyticalMember {
 		return am
 	}
 	am.inst = in
+	var ab [10]ifcstep.Value
+	vs := attrsOf(in, ab[:])
 	world := identity
-	if pl, ok := x.deref(in, in.Attr(pPlacement)); ok {
+	if pl, ok := x.deref(in, at(vs, pPlacement)); ok {
 		f, ok := x.placement(pl)
 		if !ok {
 			am.why = "the placement of analytical member " + ref(in) + " cannot be read"
@@ -49,7 +50,7 @@ func (x *extractor) analyticalMember(id uint32) *analyticalMember {
 		}
 		world = f
 	}
-	s, e, ok := x.memberEdge(in)
+	s, e, ok := x.memberEdge(in, at(vs, pRepresentation))
 	if !ok {
 		am.why = "analytical member " + ref(in) + " has no readable edge (IfcTopologyRepresentation with an IfcEdge)"
 		return am
@@ -65,7 +66,7 @@ func (x *extractor) analyticalMember(id uint32) *analyticalMember {
 	am.ok = true
 	am.x = xa
 	if x.s.memberAxis >= 0 {
-		if ai, ok := x.deref(in, in.Attr(x.s.memberAxis)); ok {
+		if ai, ok := x.deref(in, at(vs, x.s.memberAxis)); ok {
 			if a, ok := x.readDir(ai); ok {
 				if z, ok := a.sub(xa.scale(a.dot(xa))).unit(); ok {
 					am.z, am.y, am.hasAxes = z, z.cross(xa), true
@@ -82,13 +83,13 @@ func (x *extractor) analyticalMember(id uint32) *analyticalMember {
 }
 
 // memberEdge reads the start and end vertices of a curve member's edge.
-func (x *extractor) memberEdge(in ifcstep.Instance) (vec, vec, bool) {
-	pds, ok := x.deref(in, in.Attr(pRepresentation))
+func (x *extractor) memberEdge(in ifcstep.Instance, rep ifcstep.Value) (vec, vec, bool) {
+	pds, ok := x.deref(in, rep)
 	if !ok {
 		return vec{}, vec{}, false
 	}
-	reps, _ := pds.Attr(pReps).List()
-	for _, rv := range reps {
+	var rb [4]ifcstep.Value
+	for _, rv := range listOf(pds.Attr(pReps), rb[:]) {
 		rep, ok := x.deref(pds, rv)
 		if !ok {
 			continue
@@ -111,8 +112,8 @@ func (x *extractor) repEdge(rep ifcstep.Instance, tr frame, depth int) (vec, vec
 	default:
 		return vec{}, vec{}, false
 	}
-	items, _ := rep.Attr(pRepItems).List()
-	for _, iv := range items {
+	var ib [2]ifcstep.Value
+	for _, iv := range listOf(rep.Attr(pRepItems), ib[:]) {
 		it, ok := x.deref(rep, iv)
 		if !ok {
 			continue
@@ -166,8 +167,10 @@ func (x *extractor) edgePoints(it ifcstep.Instance, depth int) (vec, vec, bool) 
 	}
 	switch it.Type() {
 	case "IFCEDGE", "IFCEDGECURVE", "IFCSUBEDGE":
-		s, ok1 := vertex(it.Attr(pEdgeStart))
-		e, ok2 := vertex(it.Attr(pEdgeEnd))
+		var ab [4]ifcstep.Value
+		vs := attrsOf(it, ab[:])
+		s, ok1 := vertex(at(vs, pEdgeStart))
+		e, ok2 := vertex(at(vs, pEdgeEnd))
 		return s, e, ok1 && ok2
 	case "IFCORIENTEDEDGE":
 		el, ok := x.deref(it, it.Attr(pOrientedEdge))
@@ -312,8 +315,12 @@ type memberResult struct {
 // memberResults reads the curve reactions of an analytical member that
 // belong to result sets that are checked.
 func (x *extractor) memberResults(am *analyticalMember) []memberResult {
-	var out []memberResult
-	for _, rid := range x.idx.reactions[am.inst.ID()] {
+	rids := x.idx.reactions[am.inst.ID()]
+	if len(rids) == 0 {
+		return nil
+	}
+	out := make([]memberResult, 0, len(rids))
+	for _, rid := range rids {
 		rs := x.results[x.idx.resultGroup[rid]]
 		if rs == nil || !rs.use {
 			continue
@@ -336,9 +343,11 @@ func (x *extractor) memberResults(am *analyticalMember) []memberResult {
 // readReaction reads an IfcStructuralCurveReaction's load configuration.
 func (x *extractor) readReaction(r ifcstep.Instance, am *analyticalMember) (memberResult, string) {
 	mr := memberResult{ref: ref(r)}
-	g, _ := r.Attr(pReactGlobal).Enum()
+	var rb [10]ifcstep.Value
+	rvs := attrsOf(r, rb[:])
+	g, _ := at(rvs, pReactGlobal).Enum()
 	mr.global = g == "GLOBAL_COORDS"
-	load, ok := x.deref(r, r.Attr(pReactLoad))
+	load, ok := x.deref(r, at(rvs, pReactLoad))
 	if !ok {
 		return mr, "curve reaction " + ref(r) + " has no applied load"
 	}
@@ -346,10 +355,14 @@ func (x *extractor) readReaction(r ifcstep.Instance, am *analyticalMember) (memb
 		return mr, "curve reaction " + ref(r) + " gives " + entityName(load.Type()) + ", not an IfcStructuralLoadConfiguration of forces at locations: not used"
 	}
 	fq, mq := x.factor(qForce), x.factor(qTorque)
-	var locs []float64
-	if lv := load.Attr(pConfigLocs); !lv.IsUnset() {
-		list, err := lv.List()
-		if err != nil {
+	var cb [3]ifcstep.Value
+	cvs := attrsOf(load, cb[:])
+	var lb [8]float64
+	locs := lb[:0]
+	if lv := at(cvs, pConfigLocs); !lv.IsUnset() {
+		var eb [8]ifcstep.Value
+		list := listOf(lv, eb[:])
+		if list == nil {
 			return mr, "unreadable locations in " + ref(load)
 		}
 		for _, l := range list {
@@ -361,11 +374,12 @@ func (x *extractor) readReaction(r ifcstep.Instance, am *analyticalMember) (memb
 			locs = append(locs, p[0]*x.lengthFactor)
 		}
 	}
-	vals, err := load.Attr(pConfigValues).List()
-	if err != nil || len(vals) == 0 {
+	var vb [8]ifcstep.Value
+	vals := listOf(at(cvs, pConfigValues), vb[:])
+	if len(vals) == 0 {
 		return mr, "no values in " + ref(load)
 	}
-	if locs == nil {
+	if len(locs) == 0 {
 		// EQUIDISTANT: the values are spread evenly from start to end.
 		if len(vals) < 2 || am.length == 0 {
 			return mr, "values without locations in " + ref(load)
@@ -377,27 +391,35 @@ func (x *extractor) readReaction(r ifcstep.Instance, am *analyticalMember) (memb
 	if len(locs) != len(vals) {
 		return mr, ref(load) + " has " + itoa(len(vals)) + " values at " + itoa(len(locs)) + " locations"
 	}
+	mr.stations = make([]station, 0, len(vals))
 	for i, v := range vals {
 		sf, ok := x.deref(load, v)
 		if !ok || sf.Type() != "IFCSTRUCTURALLOADSINGLEFORCE" {
 			return mr, ref(load) + " holds a value that is not an IfcStructuralLoadSingleForce"
 		}
-		vs, err := sf.Attrs()
-		if err != nil || len(vs) < 7 {
+		var fb [7]ifcstep.Value
+		vs := attrsOf(sf, fb[:])
+		if len(vs) < 7 {
 			return mr, "unreadable force " + ref(sf)
 		}
 		var st station
 		st.x = locs[i]
 		for k := 0; k < 3; k++ {
-			if f, ok := vs[pForceX+k].Real(); ok {
+			if f, ok := realOf(vs[pForceX+k]); ok {
 				st.f[k] = f * fq
 			}
-			if m, ok := vs[pForceX+3+k].Real(); ok {
+			if m, ok := realOf(vs[pForceX+3+k]); ok {
 				st.m[k] = m * mq
 			}
 		}
 		mr.stations = append(mr.stations, st)
 	}
-	sort.SliceStable(mr.stations, func(i, j int) bool { return mr.stations[i].x < mr.stations[j].x })
+	// In order along the member (stable insertion sort: few stations).
+	st := mr.stations
+	for i := 1; i < len(st); i++ {
+		for j := i; j > 0 && st[j].x < st[j-1].x; j-- {
+			st[j], st[j-1] = st[j-1], st[j]
+		}
+	}
 	return mr, ""
 }

@@ -66,15 +66,20 @@ func detectConvention(n0, n1 float64) (SignConvention, bool) {
 // written force at the end; stations in between can only be section forces
 // and are read as such.
 func toSectionForces(st []station, c SignConvention) []sectionForce {
-	out := make([]sectionForce, len(st))
+	return appendSectionForces(make([]sectionForce, 0, len(st)), st, c)
+}
+
+// appendSectionForces is toSectionForces into dst's storage.
+func appendSectionForces(dst []sectionForce, st []station, c SignConvention) []sectionForce {
+	dst = dst[:0]
 	for i, s := range st {
 		k := 1.0
 		if c == ConventionEndForces && i == 0 && len(st) > 1 {
 			k = -1
 		}
-		out[i] = sectionForce{x: s.x, n: k * s.f[0], vy: k * s.f[1], vz: k * s.f[2], ty: k * s.m[0], my: k * s.m[1], mz: k * s.m[2], haveShears: true}
+		dst = append(dst, sectionForce{x: s.x, n: k * s.f[0], vy: k * s.f[1], vz: k * s.f[2], ty: k * s.m[0], my: k * s.m[1], mz: k * s.m[2], haveShears: true})
 	}
-	return out
+	return dst
 }
 
 // equilibriumResidual returns how far the forces written at the two ends of
@@ -128,7 +133,8 @@ func hermitePeak(xs, ms, ss []float64) float64 {
 		a := 6*m0 + 3*d0 - 6*m1 + 3*d1
 		b := -6*m0 - 4*d0 + 6*m1 - 2*d1
 		c := d0
-		for _, t := range quadRoots(a, b, c) {
+		roots, nr := roots2(a, b, c)
+		for _, t := range roots[:nr] {
 			if t > 0 && t < 1 {
 				t2, t3 := t*t, t*t*t
 				v := (2*t3-3*t2+1)*m0 + (t3-2*t2+t)*d0 + (-2*t3+3*t2)*m1 + (t3-t2)*d1
@@ -142,30 +148,37 @@ func hermitePeak(xs, ms, ss []float64) float64 {
 // quadRoots returns the real roots of a t² + b t + c = 0 (one root when
 // linear, none when constant).
 func quadRoots(a, b, c float64) []float64 {
+	r, n := roots2(a, b, c)
+	return append([]float64(nil), r[:n]...)
+}
+
+// roots2 is quadRoots without allocating: the roots and their number.
+func roots2(a, b, c float64) ([2]float64, int) {
+	var r [2]float64
 	scale := math.Max(math.Abs(a), math.Max(math.Abs(b), math.Abs(c)))
 	if scale == 0 {
-		return nil
+		return r, 0
 	}
 	if math.Abs(a) < 1e-12*scale {
 		if math.Abs(b) < 1e-12*scale {
-			return nil
+			return r, 0
 		}
-		return []float64{-c / b}
+		r[0] = -c / b
+		return r, 1
 	}
 	disc := b*b - 4*a*c
 	if disc < 0 {
-		return nil
+		return r, 0
 	}
 	sq := math.Sqrt(disc)
 	// Numerically stable form.
 	q := -0.5 * (b + math.Copysign(sq, b))
-	var r []float64
 	if q != 0 {
-		r = append(r, q/a, c/q)
-	} else {
-		r = append(r, -b/(2*a))
+		r[0], r[1] = q/a, c/q
+		return r, 2
 	}
-	return r
+	r[0] = -b / (2 * a)
+	return r, 1
 }
 
 // shearTolerance: end shears that differ by more than 1 % of the larger
@@ -186,11 +199,22 @@ func diagram(sf []sectionForce, phi, length float64) (nstar float64, ax [2]check
 		return 0, ax
 	}
 	c, s := math.Cos(phi), math.Sin(phi)
-	xs := make([]float64, len(sf))
+	// Stack storage for the usual few stations.
+	var xsA [8]float64
+	var msA, ssA [2][8]float64
+	xs := xsA[:0]
 	var ms, ss [2][]float64
-	for a := range ms {
-		ms[a] = make([]float64, len(sf))
-		ss[a] = make([]float64, len(sf))
+	if len(sf) <= len(xsA) {
+		xs = xsA[:len(sf)]
+		for a := range ms {
+			ms[a], ss[a] = msA[a][:len(sf)], ssA[a][:len(sf)]
+		}
+	} else {
+		xs = make([]float64, len(sf))
+		for a := range ms {
+			ms[a] = make([]float64, len(sf))
+			ss[a] = make([]float64, len(sf))
+		}
 	}
 	for i, f := range sf {
 		xs[i] = f.x

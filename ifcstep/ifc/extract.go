@@ -3,8 +3,10 @@ package ifc
 import (
 	"errors"
 	"math"
+	"runtime"
 	"strconv"
 	"strings"
+	"sync"
 
 	"swaygate/checks"
 	"swaygate/checks/effective"
@@ -76,6 +78,11 @@ type Options struct {
 	// ConventionAuto (the default) detects it.
 	Convention SignConvention
 
+	// Workers is the number of goroutines that extract members and scan the
+	// relationships; 0 means runtime.GOMAXPROCS(0). The result does not
+	// depend on it.
+	Workers int
+
 	// KeFamily chooses the idealised ke table used for
 	// Swaygate_ColumnDesign end conditions (EndConditionBottom/Top): the
 	// design values of AS 4100 (the default), AISC, or the theoretical ones.
@@ -129,6 +136,7 @@ type extractor struct {
 
 	// Caches keyed by instance id.
 	placements map[uint32]cachedFrame
+	dirs       map[uint32]cachedDir
 	profiles   map[uint32]*profileInfo
 	materials  map[uint32]*materialInfo
 	storeys    map[uint32]storeyInfo
@@ -138,6 +146,54 @@ type extractor struct {
 	groups  map[uint32]*loadGroup
 	results map[uint32]*resultSet
 	aux     []memberAux // parallel to model.Members
+
+	workers int
+	// sink, when set (a worker's copy), collects warnings and assumptions
+	// for the main extractor to merge in candidate order.
+	sink *[]note
+}
+
+// note is a warning or an assumption found by a worker.
+type note struct {
+	kind           uint8 // noteWarn, noteWarnOnce, noteAssume
+	code, msg, ref string
+}
+
+const (
+	noteWarn uint8 = iota
+	noteWarnOnce
+	noteAssume
+)
+
+// fork returns a copy of x for one worker: the shared, read-only state
+// (file, schema, options, units, indexes, load and result groups) and its
+// own caches. Its warnings and assumptions go to its sink.
+func (x *extractor) fork() *extractor {
+	w := *x
+	w.placements = map[uint32]cachedFrame{}
+	w.dirs = map[uint32]cachedDir{}
+	w.profiles = map[uint32]*profileInfo{}
+	w.materials = map[uint32]*materialInfo{}
+	w.storeys = map[uint32]storeyInfo{}
+	w.analytical = map[uint32]*analyticalMember{}
+	w.warned, w.assumed = nil, nil
+	w.aux = nil
+	w.sink = nil
+	return &w
+}
+
+// merge replays a worker's notes on x.
+func (x *extractor) merge(notes []note) {
+	for _, n := range notes {
+		switch n.kind {
+		case noteWarn:
+			x.warn(n.code, n.msg, n.ref)
+		case noteWarnOnce:
+			x.warnOnce(n.code, n.msg, n.ref)
+		default:
+			x.assume(n.msg)
+		}
+	}
 }
 
 func newExtractor(f *ifcstep.File, opt Options) *extractor {
@@ -149,6 +205,7 @@ func newExtractor(f *ifcstep.File, opt Options) *extractor {
 		warned:     map[string]bool{},
 		assumed:    map[string]bool{},
 		placements: map[uint32]cachedFrame{},
+		dirs:       map[uint32]cachedDir{},
 		profiles:   map[uint32]*profileInfo{},
 		materials:  map[uint32]*materialInfo{},
 		storeys:    map[uint32]storeyInfo{},
@@ -158,6 +215,10 @@ func newExtractor(f *ifcstep.File, opt Options) *extractor {
 
 // run performs the extraction.
 func (x *extractor) run() {
+	x.workers = x.opt.Workers
+	if x.workers <= 0 {
+		x.workers = runtime.GOMAXPROCS(0)
+	}
 	x.readUnits()
 	x.lengthFactor = x.factor(qLength)
 	x.angleFactor = x.units.toInt[qAngle]
@@ -165,25 +226,86 @@ func (x *extractor) run() {
 	cands := x.candidates()
 	x.buildIndex(cands)
 	x.readAnalysis()
+	x.readMembers(cands)
+	x.assignActions()
+}
+
+// memberResult is what a worker makes of one candidate.
+type candResult struct {
+	m     checks.Member
+	aux   memberAux
+	skip  *checks.Skipped
+	notes []note
+}
+
+// readMembers extracts the candidates on x.workers goroutines, each on a
+// contiguous share, and merges the results in candidate order, so that the
+// model does not depend on the number of workers.
+func (x *extractor) readMembers(cands []candidate) {
+	res := make([]candResult, len(cands))
+	work := func(w *extractor, lo, hi int) {
+		for i := lo; i < hi; i++ {
+			r := &res[i]
+			w.sink = &r.notes
+			r.m, r.aux, r.skip = w.member(&cands[i])
+			if r.skip == nil && x.opt.Actions == nil {
+				w.memberActions(&r.m, &r.aux)
+			}
+		}
+		w.sink = nil
+	}
+	n := min(x.workers, len(cands))
+	if x.opt.Workers <= 0 {
+		n = min(n, len(cands)/64+1) // not worth a goroutine for a few members
+	}
+	if n <= 1 {
+		work(x.fork(), 0, len(cands))
+	} else {
+		var wg sync.WaitGroup
+		for k := 0; k < n; k++ {
+			lo, hi := k*len(cands)/n, (k+1)*len(cands)/n
+			w := x.fork()
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				work(w, lo, hi)
+			}()
+		}
+		wg.Wait()
+	}
 
 	members := make([]checks.Member, 0, len(cands))
 	x.aux = make([]memberAux, 0, len(cands))
 	seen := make(map[string]uint32, len(cands))
-	for i := range cands {
-		m, aux, skip := x.member(&cands[i], seen)
-		if skip != nil {
-			x.model.Skipped = append(x.model.Skipped, *skip)
+	for i := range res {
+		r := &res[i]
+		x.merge(r.notes)
+		if r.skip == nil {
+			in := cands[i].inst
+			if prev, dup := seen[r.m.GlobalID]; dup {
+				x.warn("duplicate-global-id", r.m.Entity+" "+ref(in)+" repeats the GlobalId "+r.m.GlobalID+" of "+refID(prev)+": not checked", ref(in))
+				r.skip = &checks.Skipped{GlobalID: r.m.GlobalID, Name: r.m.Name, Entity: r.m.Entity, Reason: "duplicate-global-id",
+					Message: ref(in) + " repeats the GlobalId of " + refID(prev)}
+			} else {
+				seen[r.m.GlobalID] = in.ID()
+			}
+		}
+		if r.skip != nil {
+			x.model.Skipped = append(x.model.Skipped, *r.skip)
 			continue
 		}
-		members = append(members, m)
-		x.aux = append(x.aux, aux)
+		members = append(members, r.m)
+		x.aux = append(x.aux, r.aux)
 	}
 	x.model.Members = members
-	x.assignActions()
 }
 
 // warn records a model-wide warning once per (code, message).
 func (x *extractor) warn(code, msg, at string) {
+	if x.sink != nil {
+		*x.sink = append(*x.sink, note{kind: noteWarn, code: code, msg: msg, ref: at})
+		return
+	}
 	k := code + "\x00" + msg
 	if x.warned[k] {
 		return
@@ -194,6 +316,10 @@ func (x *extractor) warn(code, msg, at string) {
 
 // warnOnce records a warning once per code.
 func (x *extractor) warnOnce(code, msg, at string) {
+	if x.sink != nil {
+		*x.sink = append(*x.sink, note{kind: noteWarnOnce, code: code, msg: msg, ref: at})
+		return
+	}
 	k := code + "\x00"
 	if x.warned[k] {
 		return
@@ -204,6 +330,10 @@ func (x *extractor) warnOnce(code, msg, at string) {
 
 // assume records an assumption once.
 func (x *extractor) assume(msg string) {
+	if x.sink != nil {
+		*x.sink = append(*x.sink, note{kind: noteAssume, msg: msg})
+		return
+	}
 	if x.assumed[msg] {
 		return
 	}

@@ -8,6 +8,7 @@ import (
 
 	"swaygate/checks"
 	"swaygate/checks/section"
+	"swaygate/reports"
 )
 
 func fixture(name string) string { return filepath.Join(fixturesDir, name) }
@@ -389,5 +390,35 @@ func TestOptionsErrors(t *testing.T) {
 	}
 	if _, err := ParseSignConvention("both"); err == nil {
 		t.Error("unknown convention accepted")
+	}
+}
+
+// TestWorkersDeterministic: the model does not depend on the number of
+// goroutines (compared through the member listing, which writes every
+// extracted value).
+func TestWorkersDeterministic(t *testing.T) {
+	listing := func(m *checks.Model) string {
+		var b strings.Builder
+		if err := reports.WriteMembersJSON(&b, m, reports.Run{}); err != nil {
+			t.Fatal(err)
+		}
+		return b.String()
+	}
+	for _, path := range []string{filepath.Join(demoDir, "tern-street-depot.ifc"), fixture("problems.ifc"), fixture("results-signs.ifc"), fixture("profiles.ifc")} {
+		f := readModel(t, path)
+		one, err := Extract(f, Options{Workers: 1, MemberTypes: []string{"*"}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := listing(one)
+		for _, w := range []int{2, 3, 7} {
+			m, err := Extract(f, Options{Workers: w, MemberTypes: []string{"*"}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if got := listing(m); got != want {
+				t.Errorf("%s: %d workers give another model than one", path, w)
+			}
+		}
 	}
 }

@@ -86,12 +86,24 @@ func (x *extractor) readDir(in ifcstep.Instance) (vec, bool) {
 	if in.Type() != "IFCDIRECTION" {
 		return vec{}, false
 	}
+	// Directions are shared by many placements: cached.
+	if d, ok := x.dirs[in.ID()]; ok {
+		return d.d, d.ok
+	}
 	var d vec
 	n, ok := readReals(in.Attr(pCoordinates), d[:])
 	if !ok || n < 2 || !d.isFinite() {
-		return vec{}, false
+		d, ok = vec{}, false
 	}
-	return d, true
+	if x.dirs != nil {
+		x.dirs[in.ID()] = cachedDir{d, ok}
+	}
+	return d, ok
+}
+
+type cachedDir struct {
+	d  vec
+	ok bool
 }
 
 // readReals reads a list of numbers into dst, returning how many there were.
@@ -236,8 +248,9 @@ var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10,
 func (x *extractor) readAxis2Placement(in ifcstep.Instance) (frame, bool) {
 	switch in.Type() {
 	case "IFCAXIS2PLACEMENT3D":
-		vs, err := in.Attrs()
-		if err != nil || len(vs) < 3 {
+		var buf [3]ifcstep.Value
+		vs := attrsOf(in, buf[:])
+		if len(vs) < 3 {
 			return frame{}, false
 		}
 		var f frame
@@ -280,7 +293,9 @@ func (x *extractor) readPlacement2D(in ifcstep.Instance) (o [2]float64, xa [2]fl
 	if in.Type() != "IFCAXIS2PLACEMENT2D" {
 		return o, xa, false
 	}
-	loc, ok := x.deref(in, in.Attr(pLocation))
+	var buf [2]ifcstep.Value
+	vs := attrsOf(in, buf[:])
+	loc, ok := x.deref(in, at(vs, pLocation))
 	if !ok {
 		return o, xa, false
 	}
@@ -289,7 +304,7 @@ func (x *extractor) readPlacement2D(in ifcstep.Instance) (o [2]float64, xa [2]fl
 		return o, xa, false
 	}
 	xa = [2]float64{1, 0}
-	if d, ok := x.deref(in, in.Attr(pRefDir2D)); ok {
+	if d, ok := x.deref(in, at(vs, pRefDir2D)); ok {
 		v, ok := x.readDir(d)
 		if !ok {
 			return o, xa, false
@@ -311,6 +326,8 @@ func (x *extractor) placement(in ifcstep.Instance) (frame, bool) {
 		return f.f, f.ok
 	}
 	var chain [64]ifcstep.Instance
+	var rels [64]ifcstep.Value // RelativePlacement of each link
+	var buf [2]ifcstep.Value
 	n := 0
 	cur := in
 	var base frame = identity
@@ -344,7 +361,9 @@ func (x *extractor) placement(in ifcstep.Instance) (frame, bool) {
 			baseOK = false
 			break
 		}
-		parent, ok := x.deref(cur, cur.Attr(pRelTo))
+		vs := attrsOf(cur, buf[:])
+		rels[n-1] = at(vs, pRelPlacement)
+		parent, ok := x.deref(cur, at(vs, pRelTo))
 		if !ok {
 			break // relative to the world
 		}
@@ -355,7 +374,7 @@ func (x *extractor) placement(in ifcstep.Instance) (frame, bool) {
 	for k := n - 1; k >= 0; k-- {
 		c := chain[k]
 		if ok && c.Type() == "IFCLOCALPLACEMENT" {
-			rel, rok := x.deref(c, c.Attr(pRelPlacement))
+			rel, rok := x.deref(c, rels[k])
 			var g frame
 			if rok {
 				g, rok = x.readAxis2Placement(rel)

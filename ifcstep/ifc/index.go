@@ -2,6 +2,7 @@ package ifc
 
 import (
 	"strings"
+	"sync"
 
 	"swaygate/ifcstep"
 )
@@ -82,6 +83,40 @@ func forRefs(v ifcstep.Value, fn func(id uint32)) {
 	}
 }
 
+// scan calls fn on every instance of ins, on x.workers goroutines for a
+// long list (contiguous shares), and returns the hits fn appends, in the
+// order of ins. fn may only read shared state.
+func scan[T any](x *extractor, ins []ifcstep.Instance, fn func(in ifcstep.Instance, hits []T) []T) []T {
+	n := min(x.workers, len(ins)/2048)
+	if n <= 1 {
+		var hits []T
+		for _, in := range ins {
+			hits = fn(in, hits)
+		}
+		return hits
+	}
+	parts := make([][]T, n)
+	var wg sync.WaitGroup
+	for k := range parts {
+		lo, hi := k*len(ins)/n, (k+1)*len(ins)/n
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			var hits []T
+			for _, in := range ins[lo:hi] {
+				hits = fn(in, hits)
+			}
+			parts[k] = hits
+		}()
+	}
+	wg.Wait()
+	var out []T
+	for _, p := range parts {
+		out = append(out, p...)
+	}
+	return out
+}
+
 func forRefsSlow(v ifcstep.Value, fn func(id uint32)) {
 	list, err := v.List()
 	if err != nil {
@@ -92,6 +127,50 @@ func forRefsSlow(v ifcstep.Value, fn func(id uint32)) {
 			fn(id)
 		}
 	}
+}
+
+// attrsOf decodes an instance's attributes into buf's storage (no
+// allocation when they fit); nil on a syntax error. Decoding the attributes
+// once costs one pass over the instance, where each Instance.Attr call
+// passes over it again.
+func attrsOf(in ifcstep.Instance, buf []ifcstep.Value) []ifcstep.Value {
+	vs, err := in.AppendAttrs(buf[:0])
+	if err != nil {
+		return nil
+	}
+	return vs
+}
+
+// listOf decodes a list value into buf's storage; nil when v is not a list.
+func listOf(v ifcstep.Value, buf []ifcstep.Value) []ifcstep.Value {
+	if k := v.Kind(); k != ifcstep.KindList && k != ifcstep.KindTyped {
+		return nil
+	}
+	vs, err := v.AppendList(buf[:0])
+	if err != nil {
+		return nil
+	}
+	return vs
+}
+
+// realOf returns a number value as float64: plain reals and integers are
+// parsed in place (faster than the reader's general accessor), anything
+// else (typed values) through Value.Real.
+func realOf(v ifcstep.Value) (float64, bool) {
+	if k := v.Kind(); k == ifcstep.KindReal || k == ifcstep.KindInt {
+		if f, ok := parseReal(v.Raw()); ok {
+			return f, true
+		}
+	}
+	return v.Real()
+}
+
+// at returns vs[i], or an unset value when i is out of range.
+func at(vs []ifcstep.Value, i int) ifcstep.Value {
+	if i < 0 || i >= len(vs) {
+		return ifcstep.Value{}
+	}
+	return vs[i]
 }
 
 // typeOf returns the upper-case type of instance id ("" when absent).
@@ -243,12 +322,13 @@ func (x *extractor) buildIndex(cs []candidate) {
 		}
 	}
 
-	// Property sets and quantities.
-	for _, rel := range x.f.ByType("IFCRELDEFINESBYPROPERTIES") {
+	// Property sets and quantities (in a large model most relationships are
+	// of other elements: the scan runs on every worker).
+	type objSet struct{ obj, set uint32 }
+	for _, h := range scan(x, x.f.ByType("IFCRELDEFINESBYPROPERTIES"), func(rel ifcstep.Instance, hits []objSet) []objSet {
 		var pset uint32
 		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
-			i, isCand := pos[id]
-			if !isCand && !types[id] {
+			if _, isCand := pos[id]; !isCand && !types[id] {
 				return
 			}
 			if pset == 0 {
@@ -256,15 +336,17 @@ func (x *extractor) buildIndex(cs []candidate) {
 					pset = p
 				}
 			}
-			if pset == 0 {
-				return
-			}
-			if isCand {
-				cs[i].psets = append(cs[i].psets, pset)
-			} else {
-				ix.typePsets[id] = append(ix.typePsets[id], pset)
+			if pset != 0 {
+				hits = append(hits, objSet{id, pset})
 			}
 		})
+		return hits
+	}) {
+		if i, isCand := pos[h.obj]; isCand {
+			cs[i].psets = append(cs[i].psets, h.set)
+		} else {
+			ix.typePsets[h.obj] = append(ix.typePsets[h.obj], h.set)
+		}
 	}
 
 	// Materials.
@@ -312,7 +394,7 @@ func (x *extractor) buildIndex(cs []candidate) {
 			id = ix.parent[id]
 		}
 	}
-	for _, rel := range x.f.ByType("IFCRELCONTAINEDINSPATIALSTRUCTURE") {
+	for _, h := range scan(x, x.f.ByType("IFCRELCONTAINEDINSPATIALSTRUCTURE"), func(rel ifcstep.Instance, hits []objSet) []objSet {
 		var st uint32
 		forRefs(rel.Attr(pContainedElems), func(id uint32) {
 			if !interest[id] {
@@ -321,10 +403,15 @@ func (x *extractor) buildIndex(cs []candidate) {
 			if st == 0 {
 				st, _ = rel.Attr(pContainedIn).Ref()
 			}
-			if _, dup := ix.contained[id]; !dup && st != 0 {
-				ix.contained[id] = st
+			if st != 0 {
+				hits = append(hits, objSet{id, st})
 			}
 		})
+		return hits
+	}) {
+		if _, dup := ix.contained[h.obj]; !dup {
+			ix.contained[h.obj] = h.set
+		}
 	}
 	for i := range cs {
 		id := cs[i].inst.ID()
@@ -396,17 +483,21 @@ func (x *extractor) buildIndex(cs []candidate) {
 	}
 	reactions := map[uint32]bool{}
 	if len(members) > 0 {
-		for _, rel := range x.f.ByType("IFCRELCONNECTSSTRUCTURALACTIVITY") {
-			m, ok := rel.Attr(pRelating).Ref()
+		for _, h := range scan(x, x.f.ByType("IFCRELCONNECTSSTRUCTURALACTIVITY"), func(rel ifcstep.Instance, hits []objSet) []objSet {
+			var ab [6]ifcstep.Value
+			vs := attrsOf(rel, ab[:])
+			m, ok := at(vs, pRelating).Ref()
 			if !ok || !members[m] {
-				continue
+				return hits
 			}
-			r, ok := rel.Attr(pRelated).Ref()
+			r, ok := at(vs, pRelated).Ref()
 			if !ok || x.typeOf(r) != "IFCSTRUCTURALCURVEREACTION" {
-				continue
+				return hits
 			}
-			ix.reactions[m] = append(ix.reactions[m], r)
-			reactions[r] = true
+			return append(hits, objSet{m, r})
+		}) {
+			ix.reactions[h.obj] = append(ix.reactions[h.obj], h.set)
+			reactions[h.set] = true
 		}
 	}
 	if len(reactions) > 0 {

@@ -30,14 +30,16 @@ type storeyInfo struct {
 }
 
 // member builds one member from a candidate, or says why it is skipped.
-func (x *extractor) member(c *candidate, seen map[string]uint32) (checks.Member, memberAux, *checks.Skipped) {
+func (x *extractor) member(c *candidate) (checks.Member, memberAux, *checks.Skipped) {
 	in := c.inst
 	m := checks.Member{Entity: entityName(c.entity), Ref: ref(in), StoreyElevation: checks.Null, BaseZ: checks.Null, TopZ: checks.Null}
 	var aux memberAux
-	m.GlobalID = strings.TrimSpace(text(in.Attr(pGlobalID)))
-	m.Name = text(in.Attr(pName))
+	var ab [10]ifcstep.Value
+	vs := attrsOf(in, ab[:])
+	m.GlobalID = strings.TrimSpace(text(at(vs, pGlobalID)))
+	m.Name = text(at(vs, pName))
 	if !c.analysisOnly {
-		m.Tag = text(in.Attr(pTag))
+		m.Tag = text(at(vs, pTag))
 	}
 	skip := func(reason, msg string) *checks.Skipped {
 		return &checks.Skipped{GlobalID: m.GlobalID, Name: m.Name, Entity: m.Entity, Reason: reason, Message: msg}
@@ -46,11 +48,6 @@ func (x *extractor) member(c *candidate, seen map[string]uint32) (checks.Member,
 		x.warn("missing-global-id", m.Entity+" "+ref(in)+" has no GlobalId: not checked", ref(in))
 		return m, aux, skip("missing-global-id", ref(in)+" has no GlobalId")
 	}
-	if prev, dup := seen[m.GlobalID]; dup {
-		x.warn("duplicate-global-id", m.Entity+" "+ref(in)+" repeats the GlobalId "+m.GlobalID+" of "+refID(prev)+": not checked", ref(in))
-		return m, aux, skip("duplicate-global-id", ref(in)+" repeats the GlobalId of "+refID(prev))
-	}
-	seen[m.GlobalID] = in.ID()
 
 	// Material: the occurrence's association, else the type's.
 	var mi, typeMI *materialInfo
@@ -91,7 +88,7 @@ func (x *extractor) member(c *candidate, seen map[string]uint32) (checks.Member,
 				aux.am = nil
 			}
 		}
-		x.physicalGeometry(c, &m, &aux, mi, typeMI)
+		x.physicalGeometry(c, &m, &aux, mi, typeMI, at(vs, pPlacement), at(vs, pRepresentation))
 	}
 	x.restraint(&m, aux.psets)
 	return m, aux, nil
@@ -168,13 +165,13 @@ func (x *extractor) storey(id uint32) storeyInfo {
 
 // physicalGeometry finds the section, orientation, length and elevations of
 // a physical element.
-func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *memberAux, mi, typeMI *materialInfo) {
+func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *memberAux, mi, typeMI *materialInfo, plV, repV ifcstep.Value) {
 	in := c.inst
 	world, worldOK := identity, false
-	if pl, ok := x.deref(in, in.Attr(pPlacement)); ok {
+	if pl, ok := x.deref(in, plV); ok {
 		world, worldOK = x.placement(pl)
 	}
-	b := x.body(in)
+	b := x.body(in, repV)
 
 	// The profile: the material profile set (occurrence, else type), else
 	// the body extrusion.
@@ -233,11 +230,16 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 		prof = ifcstep.Instance{}
 	}
 
-	// Axis of the member, object coordinates.
+	// Axis of the member, object coordinates: the 'Axis' polyline when it
+	// matters (no analytical member gives the length), else the extrusion.
 	axisDir := vec{0, 0, 1}
+	var axis []vec
+	if aux.am == nil || ext == nil {
+		axis = x.axisLine(&b)
+	}
 	switch {
-	case len(b.axis) >= 2:
-		if d, ok := b.axis[len(b.axis)-1].sub(b.axis[0]).unit(); ok {
+	case len(axis) >= 2:
+		if d, ok := axis[len(axis)-1].sub(axis[0]).unit(); ok {
 			axisDir = d
 		}
 	case ext != nil:
@@ -293,8 +295,8 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 			p0 := world.point(ext.plane.o)
 			p1 := world.point(ext.plane.o.add(ext.dir.scale(ext.depth)))
 			m.BaseZ, m.TopZ = checks.Num(math.Min(p0[2], p1[2])), checks.Num(math.Max(p0[2], p1[2]))
-		case len(b.axis) >= 2:
-			p0, p1 := world.point(b.axis[0]), world.point(b.axis[len(b.axis)-1])
+		case len(axis) >= 2:
+			p0, p1 := world.point(axis[0]), world.point(axis[len(axis)-1])
 			m.BaseZ, m.TopZ = checks.Num(math.Min(p0[2], p1[2])), checks.Num(math.Max(p0[2], p1[2]))
 		}
 	}

@@ -8,7 +8,7 @@ import (
 
 // prop is one IfcPropertySingleValue (or a quantity) of a set.
 type prop struct {
-	name  string
+	name  ifcstep.Value // the Name attribute, compared without decoding when plain
 	val   ifcstep.Value
 	unit  ifcstep.Value
 	owner ifcstep.Instance
@@ -19,18 +19,24 @@ type propList []prop
 
 // properties reads the IfcPropertySingleValue entries listed in attribute at
 // of set (IfcPropertySet.HasProperties, IfcMaterialProperties.Properties...).
-func (x *extractor) properties(set ifcstep.Instance, at int) propList {
-	var out propList
-	forRefs(set.Attr(at), func(id uint32) {
-		in, ok := x.getRef(set, set.Attr(at), id)
+func (x *extractor) properties(set ifcstep.Instance, pos int) propList {
+	list := set.Attr(pos)
+	n := 0
+	forRefs(list, func(uint32) { n++ })
+	out := make(propList, 0, n)
+	forRefs(list, func(id uint32) {
+		in, ok := x.getRef(set, list, id)
 		if !ok {
 			return
 		}
+		var ab [5]ifcstep.Value
 		switch in.Type() {
 		case "IFCPROPERTYSINGLEVALUE":
-			out = append(out, prop{name: text(in.Attr(pPropName)), val: in.Attr(pPropValue), unit: in.Attr(pPropUnit), owner: in})
+			vs := attrsOf(in, ab[:])
+			out = append(out, prop{name: at(vs, pPropName), val: at(vs, pPropValue), unit: at(vs, pPropUnit), owner: in})
 		case "IFCQUANTITYLENGTH":
-			out = append(out, prop{name: text(in.Attr(pPropName)), val: in.Attr(pQtyLenValue), unit: in.Attr(pQtyLenUnit), owner: in})
+			vs := attrsOf(in, ab[:])
+			out = append(out, prop{name: at(vs, pPropName), val: at(vs, pQtyLenValue), unit: at(vs, pQtyLenUnit), owner: in})
 		}
 	})
 	return out
@@ -39,11 +45,51 @@ func (x *extractor) properties(set ifcstep.Instance, at int) propList {
 // find returns the property of that name (case-insensitive).
 func (p propList) find(name string) (prop, bool) {
 	for _, q := range p {
-		if strings.EqualFold(q.name, name) {
+		if textIs(q.name, name) {
 			return q, true
 		}
 	}
 	return prop{}, false
+}
+
+// findValue returns the property whose name equals the string value name.
+func (p propList) findValue(name ifcstep.Value) (prop, bool) {
+	return p.find(text(name))
+}
+
+// textIs reports whether a string value equals name, ignoring ASCII case.
+// A plain literal (no escapes) is compared in place, without decoding.
+func textIs(v ifcstep.Value, name string) bool {
+	raw := v.Raw()
+	if v.Kind() == ifcstep.KindString && len(raw) >= 2 {
+		in := raw[1 : len(raw)-1]
+		plain := true
+		for _, c := range in {
+			if c == '\\' || c == '\'' || c >= 0x80 {
+				plain = false
+				break
+			}
+		}
+		if plain {
+			if len(in) != len(name) {
+				return false
+			}
+			for i := range in {
+				a, b := in[i], name[i]
+				if 'A' <= a && a <= 'Z' {
+					a += 'a' - 'A'
+				}
+				if 'A' <= b && b <= 'Z' {
+					b += 'a' - 'A'
+				}
+				if a != b {
+					return false
+				}
+			}
+			return true
+		}
+	}
+	return strings.EqualFold(text(v), name)
 }
 
 // number returns a numeric property converted to internal units (quantity q
@@ -81,3 +127,7 @@ func (p propList) label(name string) (string, bool) {
 
 // psetName returns the Name of a property set or element quantity.
 func psetName(in ifcstep.Instance) string { return text(in.Attr(pName)) }
+
+// psetIs reports whether a property set or element quantity is called name
+// (ignoring case).
+func psetIs(in ifcstep.Instance, name string) bool { return textIs(in.Attr(pName), name) }

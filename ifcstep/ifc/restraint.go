@@ -49,22 +49,27 @@ func (x *extractor) memberPsets(c *candidate) psets {
 // (each property name taken from the first set that has it), and the
 // reference of the set that gave them.
 func (x *extractor) named(sets []ifcstep.Instance, name string) (propList, string) {
-	var out propList
-	at := ""
+	var match []ifcstep.Instance
 	for _, s := range sets {
-		if s.Type() != "IFCPROPERTYSET" || !strings.EqualFold(psetName(s), name) {
-			continue
+		if s.Type() == "IFCPROPERTYSET" && psetIs(s, name) {
+			match = append(match, s)
 		}
-		if at == "" {
-			at = ref(s)
-		}
+	}
+	switch len(match) {
+	case 0:
+		return nil, ""
+	case 1:
+		return x.properties(match[0], pPsetProps), ref(match[0])
+	}
+	var out propList
+	for _, s := range match {
 		for _, p := range x.properties(s, pPsetProps) {
-			if _, dup := out.find(p.name); !dup {
+			if _, dup := out.findValue(p.name); !dup {
 				out = append(out, p)
 			}
 		}
 	}
-	return out, at
+	return out, ref(match[0])
 }
 
 // restraint reads Swaygate_ColumnDesign (occurrence, then type) into the

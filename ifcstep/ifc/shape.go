@@ -21,52 +21,69 @@ type extrusion struct {
 type bodyInfo struct {
 	extrusions []extrusion
 	others     []string // kinds of other body items (Brep, Tessellation...)
-	axis       []vec    // 'Axis' polyline points, object coordinates (mm)
+
+	// The 'Axis' representation, read on demand by axisLine.
+	axisRep   ifcstep.Instance
+	axisItems ifcstep.Value
+	axis      []vec // its polyline points, object coordinates (mm), once read
+	axisRead  bool
 }
 
-// body reads the element's body and axis representations.
-func (x *extractor) body(el ifcstep.Instance) bodyInfo {
+// axisLine returns the points of the 'Axis' polyline (object coordinates),
+// reading them the first time.
+func (x *extractor) axisLine(b *bodyInfo) []vec {
+	if !b.axisRead {
+		b.axisRead = true
+		if b.axisRep.ID() != 0 {
+			b.axis = x.axisPoints(b.axisRep, b.axisItems)
+		}
+	}
+	return b.axis
+}
+
+// body reads the element's body and axis representations from its
+// Representation attribute (rep).
+func (x *extractor) body(el ifcstep.Instance, rep ifcstep.Value) bodyInfo {
 	var b bodyInfo
-	pds, ok := x.deref(el, el.Attr(pRepresentation))
+	pds, ok := x.deref(el, rep)
 	if !ok {
 		return b
 	}
-	reps, _ := pds.Attr(pReps).List()
-	var bodies []ifcstep.Instance
+	var rb [4]ifcstep.Value
+	reps := listOf(pds.Attr(pReps), rb[:])
 	for _, rv := range reps {
-		rep, ok := x.deref(pds, rv)
-		if !ok || rep.Type() != "IFCSHAPEREPRESENTATION" {
+		r, ok := x.deref(pds, rv)
+		if !ok || r.Type() != "IFCSHAPEREPRESENTATION" {
 			continue
 		}
-		id := strings.ToLower(text(rep.Attr(pRepID)))
-		switch id {
-		case "axis":
-			if b.axis == nil {
-				b.axis = x.axisPoints(rep)
+		var ab [4]ifcstep.Value
+		vs := attrsOf(r, ab[:])
+		id := text(at(vs, pRepID))
+		switch {
+		case strings.EqualFold(id, "axis"):
+			if b.axisRep.ID() == 0 {
+				b.axisRep, b.axisItems = r, at(vs, pRepItems)
 			}
-		case "body":
-			bodies = append(bodies, rep)
-		case "":
-			switch strings.ToLower(text(rep.Attr(pRepType))) {
+		case strings.EqualFold(id, "body"):
+			x.walkItems(r, at(vs, pRepItems), identity, 1, 0, &b)
+		case id == "":
+			switch strings.ToLower(text(at(vs, pRepType))) {
 			case "sweptsolid", "clipping", "csg", "mappedrepresentation", "advancedsweptsolid", "brep", "tessellation", "advancedbrep":
-				bodies = append(bodies, rep)
+				x.walkItems(r, at(vs, pRepItems), identity, 1, 0, &b)
 			}
 		}
-	}
-	for _, rep := range bodies {
-		x.walkItems(rep, identity, 1, 0, &b)
 	}
 	return b
 }
 
-// walkItems collects the extrusions of a representation's items, through
+// walkItems collects the extrusions among a representation's items, through
 // mapped items (transformed) and boolean results (their first operand).
-func (x *extractor) walkItems(rep ifcstep.Instance, tr frame, scale float64, depth int, b *bodyInfo) {
+func (x *extractor) walkItems(rep ifcstep.Instance, items ifcstep.Value, tr frame, scale float64, depth int, b *bodyInfo) {
 	if depth > 8 {
 		return
 	}
-	items, _ := rep.Attr(pRepItems).List()
-	for _, iv := range items {
+	var ib [4]ifcstep.Value
+	for _, iv := range listOf(items, ib[:]) {
 		it, ok := x.deref(rep, iv)
 		if !ok {
 			continue
@@ -82,8 +99,9 @@ func (x *extractor) walkItem(it ifcstep.Instance, tr frame, scale float64, depth
 	switch t := it.Type(); t {
 	case "IFCEXTRUDEDAREASOLID", "IFCEXTRUDEDAREASOLIDTAPERED":
 		e := extrusion{solid: it, tapered: t == "IFCEXTRUDEDAREASOLIDTAPERED"}
-		vs, err := it.Attrs()
-		if err != nil || len(vs) < 4 {
+		var ab [5]ifcstep.Value
+		vs := attrsOf(it, ab[:])
+		if len(vs) < 4 {
 			b.others = append(b.others, "unreadable "+entityName(t))
 			return
 		}
@@ -107,7 +125,7 @@ func (x *extractor) walkItem(it ifcstep.Instance, tr frame, scale float64, depth
 		if ok {
 			d, ok = d.unit()
 		}
-		depthV, dok := vs[pDepth].Real()
+		depthV, dok := realOf(vs[pDepth])
 		if !ok || !dok || !(depthV > 0) {
 			b.others = append(b.others, entityName(t)+" with an unreadable direction or depth")
 			return
@@ -117,30 +135,34 @@ func (x *extractor) walkItem(it ifcstep.Instance, tr frame, scale float64, depth
 		e.depth = depthV * x.lengthFactor * scale
 		b.extrusions = append(b.extrusions, e)
 	case "IFCMAPPEDITEM":
-		src, ok := x.deref(it, it.Attr(pMapSource))
+		var ab [2]ifcstep.Value
+		vs := attrsOf(it, ab[:])
+		src, ok := x.deref(it, at(vs, pMapSource))
 		if !ok {
 			return
 		}
+		var sb [2]ifcstep.Value
+		svs := attrsOf(src, sb[:])
 		origin := identity
-		if oi, ok := x.deref(src, src.Attr(pMapOrigin)); ok {
+		if oi, ok := x.deref(src, at(svs, pMapOrigin)); ok {
 			if origin, ok = x.readAxis2Placement(oi); !ok {
 				return
 			}
 		}
 		target, s := identity, 1.0
-		if ti, ok := x.deref(it, it.Attr(pMapTarget)); ok {
+		if ti, ok := x.deref(it, at(vs, pMapTarget)); ok {
 			if target, s, ok = x.transform3D(ti); !ok {
 				b.others = append(b.others, "a mapped item with a non-uniform or unreadable transformation")
 				return
 			}
 		}
-		rep, ok := x.deref(src, src.Attr(pMapRep))
+		rep, ok := x.deref(src, at(svs, pMapRep))
 		if !ok {
 			return
 		}
 		// The mapped items are placed by origin⁻¹ then the target operator
 		// (ifc-facts §2.2); the scale applies to lengths.
-		x.walkItems(rep, tr.then(target).then(origin.inverse()), scale*s, depth+1, b)
+		x.walkItems(rep, rep.Attr(pRepItems), tr.then(target).then(origin.inverse()), scale*s, depth+1, b)
 	case "IFCBOOLEANCLIPPINGRESULT", "IFCBOOLEANRESULT":
 		// End cuts: the section is that of the first operand.
 		if first, ok := x.deref(it, it.Attr(pFirstOperand)); ok {
@@ -163,16 +185,21 @@ func (f frame) inverse() frame {
 	return g
 }
 
-// axisPoints reads the first polyline of an 'Axis' representation.
-func (x *extractor) axisPoints(rep ifcstep.Instance) []vec {
-	items, _ := rep.Attr(pRepItems).List()
-	for _, iv := range items {
+// axisPoints reads the first polyline among an 'Axis' representation's
+// items.
+func (x *extractor) axisPoints(rep ifcstep.Instance, items ifcstep.Value) []vec {
+	var ib [2]ifcstep.Value
+	for _, iv := range listOf(items, ib[:]) {
 		it, ok := x.deref(rep, iv)
 		if !ok || it.Type() != "IFCPOLYLINE" {
 			continue
 		}
-		list, _ := it.Attr(pPolyPoints).List()
-		var pts []vec
+		var pb [4]ifcstep.Value
+		list := listOf(it.Attr(pPolyPoints), pb[:])
+		if len(list) < 2 {
+			continue
+		}
+		pts := make([]vec, 0, len(list))
 		for _, pv := range list {
 			pi, ok := x.deref(it, pv)
 			if !ok {
@@ -184,9 +211,7 @@ func (x *extractor) axisPoints(rep ifcstep.Instance) []vec {
 			}
 			pts = append(pts, p)
 		}
-		if len(pts) >= 2 {
-			return pts
-		}
+		return pts
 	}
 	return nil
 }
