@@ -342,9 +342,17 @@ func TestRM(t *testing.T) {
 // default modulus.
 func TestOptions(t *testing.T) {
 	opt := checks.DefaultOptions()
+	// Scope full is accepted; a section without a plate model cannot be
+	// classified (AISC 360 Table B4.1), so the member needs analysis.
 	opt.Scope = "full"
-	if _, err := checks.Run(model(swayAlone(5)), aisc360.New(), opt); !errors.Is(err, aisc360.ErrScopeFull) {
-		t.Errorf("scope full: %v", err)
+	rep, err := checks.Run(model(swayAlone(5)), aisc360.New(), opt)
+	if err != nil {
+		t.Fatalf("scope full: %v", err)
+	}
+	wantReason(t, &rep.Elements[0], checks.CodeUnsupportedProfile, "")
+	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
+	if !contains(rep.Assumptions, "phi_c = phi_b = phi_t = 0.90") {
+		t.Errorf("no capacity assumption: %q", rep.Assumptions)
 	}
 
 	a := swayColumn("A", "L1", 6000e3)
@@ -353,7 +361,7 @@ func TestOptions(t *testing.T) {
 	b.Actions = []checks.Actions{act("ULS", 1000, 10, 20)}
 	opt = checks.DefaultOptions()
 	opt.SwayMethod = "member"
-	rep := run(t, model(a, b), opt)
+	rep = run(t, model(a, b), opt)
 	// source: design §5.3 (member method: the member's own P_e2/P_r): B2 = 1/(1 - 1/6), 1/(1 - 1/2) [D]
 	near(t, "A B2", rep.Elements[0].Combinations[0].Axes[0].DeltaS, 1.2, 1e-9)
 	near(t, "B B2", rep.Elements[1].Combinations[0].Axes[0].DeltaS, 2, 1e-9)
