@@ -48,6 +48,7 @@ type htmlPage struct {
 	Warnings    []string
 	Skipped     []checks.Skipped
 	Storeys     []htmlStorey
+	Frame       *htmlFrame
 	Groups      []htmlGroup
 	Calcs       []htmlCalc
 }
@@ -139,6 +140,8 @@ func newHTMLPage(r *checks.Report, run *Run, u *unitSystem) *htmlPage {
 		}
 		p.Storeys = append(p.Storeys, hs)
 	}
+
+	p.Frame = newHTMLFrame(r.Frame)
 
 	groupIdx := map[string]int{}
 	for i := range r.Elements {

@@ -382,9 +382,25 @@ func writeTrace(j *jsonWriter, steps []checks.Step) {
 func writeFrame(j *jsonWriter, f *checks.FrameResult) {
 	j.key("frame")
 	j.beginObject()
+	j.fStr("name", f.Name)
+	j.fBool("plane", f.Plane)
 	j.fInt("nodes", f.Nodes)
 	j.fInt("elements", f.Elements)
 	j.fInt("dof", f.DOF)
+	j.fStrOrNull("governing_combination", f.Governing)
+	j.fInt("covered_members", f.Covered)
+	j.fInt("fallback_axes", f.FellBack)
+	j.key("members")
+	j.beginArray()
+	for i := range f.Members {
+		m := &f.Members[i]
+		j.beginObject()
+		j.fStr("id", m.ID)
+		j.fInt("start", m.Start)
+		j.fInt("end", m.End)
+		j.endObject()
+	}
+	j.endArray()
 	j.key("combinations")
 	j.beginArray()
 	for i := range f.Combinations {
@@ -392,6 +408,30 @@ func writeFrame(j *jsonWriter, f *checks.FrameResult) {
 		j.beginObject()
 		j.fStr("name", c.Name)
 		j.fNum("lambda_c", c.LambdaC.F())
+		j.fNum("lambda_c_x", c.LambdaX.F())
+		j.fNum("lambda_c_y", c.LambdaY.F())
+		j.fStr("status", c.Status)
+		j.key("drivers")
+		j.beginArray()
+		for k := range c.Drivers {
+			j.beginObject()
+			j.fStr("member", c.Drivers[k].Member)
+			j.fNum("share", c.Drivers[k].Share)
+			j.endObject()
+		}
+		j.endArray()
+		j.key("storeys")
+		j.beginArray()
+		for k := range c.Storeys {
+			s := &c.Storeys[k]
+			j.beginObject()
+			j.fNum("bottom_z_mm", s.BottomZ)
+			j.fNum("top_z_mm", s.TopZ)
+			j.fNum("share", s.Share)
+			j.fNum("drift", s.Drift)
+			j.endObject()
+		}
+		j.endArray()
 		j.key("mode")
 		j.beginArray()
 		for k := range c.Mode {
@@ -412,6 +452,7 @@ func writeFrame(j *jsonWriter, f *checks.FrameResult) {
 	}
 	j.endArray()
 	writeStrings(j, "notes", f.Notes)
+	writeStrings(j, "limitations", f.Limitations)
 	j.endObject()
 }
 

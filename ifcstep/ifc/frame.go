@@ -118,6 +118,10 @@ func ExtractFrame(f *ifcstep.File, m *checks.Model, opt Options) (*Frame, error)
 		return nil, ErrNoFrame
 	}
 	r.surfaces()
+	r.prune()
+	if len(r.fr.Model.Members) == 0 {
+		return nil, ErrNoFrame
+	}
 	r.supportTorsion()
 	r.readResults()
 	r.mapColumns(m)
@@ -141,6 +145,7 @@ type frameReader struct {
 	pieces   map[uint32][]int   // curve member -> frame members, start first
 	amOf     map[uint32]*analyticalMember
 	tol      float64 // mm: positions closer than this coincide
+	nConns   int     // nodes read from point connections (the first ones)
 	noteSeen map[string]bool
 }
 
@@ -395,6 +400,7 @@ func (r *frameReader) readNodes() {
 		size = 0
 	}
 	r.tol = math.Max(1, 1e-6*size)
+	defer func() { r.nConns = len(r.fr.Model.Nodes) }()
 	for _, nd := range nodes {
 		if n, dup := r.findNode(nd.p); dup {
 			r.nodeOf[nd.in.ID()] = n
@@ -557,6 +563,7 @@ func (r *frameReader) readMembers() {
 			noAxis++
 		}
 		cs := r.connections(in, am, conns[in.ID()])
+		cs = r.nodesOnMember(am, cs)
 		pin := false
 		if pt, ok := in.Attr(pMemberPredef).Enum(); ok && pt == "PIN_JOINED_MEMBER" {
 			pin = true
@@ -630,10 +637,6 @@ func (r *frameReader) readMembers() {
 				mb.Ends[1].Released[4], mb.Ends[1].Released[5] = true, true
 				mb.Ends[0].Stiffness[4], mb.Ends[0].Stiffness[5] = 0, 0
 				mb.Ends[1].Stiffness[4], mb.Ends[1].Stiffness[5] = 0, 0
-			}
-			if mb.Ends[0].Released[3] && mb.Ends[1].Released[3] && mb.Ends[0].Stiffness[3] == 0 && mb.Ends[1].Stiffness[3] == 0 {
-				mb.Ends[0].Released[3] = false
-				r.note("a member released in torsion at both ends would spin freely: its torsion is kept connected at the start")
 			}
 			r.pieces[in.ID()] = append(r.pieces[in.ID()], len(r.fr.Model.Members))
 			r.fr.Model.Members = append(r.fr.Model.Members, mb)
@@ -841,6 +844,43 @@ func (r *frameReader) connections(in ifcstep.Instance, am *analyticalMember, rel
 	return out
 }
 
+// nodesOnMember adds the point connections that lie on a member between its
+// ends without being connected to it (a secondary beam framing into a
+// girder that is not split there): the member is split at them.
+func (r *frameReader) nodesOnMember(am *analyticalMember, cs []memberConn) []memberConn {
+	nodes := r.fr.Model.Nodes
+	lo, hi := am.wStart, am.wStart
+	for k := 0; k < 3; k++ {
+		lo[k], hi[k] = math.Min(am.wStart[k], am.wEnd[k])-r.tol, math.Max(am.wStart[k], am.wEnd[k])+r.tol
+	}
+	added := false
+	for n := 0; n < r.nConns; n++ {
+		p := vec(nodes[n].Pos)
+		if p[0] < lo[0] || p[0] > hi[0] || p[1] < lo[1] || p[1] > hi[1] || p[2] < lo[2] || p[2] > hi[2] {
+			continue
+		}
+		t := p.sub(am.wStart).dot(am.wx)
+		if t <= r.tol || t >= am.length-r.tol || p.sub(am.wStart.add(am.wx.scale(t))).norm() > r.tol {
+			continue
+		}
+		known := false
+		for k := range cs {
+			if cs[k].node == n {
+				known = true
+				break
+			}
+		}
+		if !known {
+			cs = append(cs, memberConn{node: n, t: t, end: -1})
+			added = true
+		}
+	}
+	if added {
+		r.note("members are split at point connections that lie on them without a connection relationship (the member is taken as connected there)")
+	}
+	return cs
+}
+
 // eccentricity returns the rigid offset from the node to the member end
 // that an IfcConnectionPointEccentricity gives where the member's vertex
 // lies on the node: its EccentricityInX/Y/Z, in the member's local axes,
@@ -917,6 +957,13 @@ func (r *frameReader) endCondition(c *memberConn, am *analyticalMember, axis vec
 			r.note("releases given in axes that are not the member's principal axes are applied to the nearest principal axis")
 		}
 		t := best + 3*(d/3)
+		if t == 3 {
+			// Torsion stays connected: a twist release leaves members free to
+			// spin wherever nothing else holds the twist, and does not change
+			// flexural buckling.
+			r.note("torsion releases of member ends are not applied (the twist stays connected): they do not change flexural buckling and would leave members free to spin")
+			continue
+		}
 		ec.Released[t] = true
 		ec.Stiffness[t] = stiff[d]
 	}
@@ -1287,4 +1334,91 @@ func (r *frameReader) supportTorsion() {
 		r.note("supports free to rotate about the axis of the member they carry are taken as restrained in that rotation (" + itoa(fixed) +
 			"): a member free to twist would be a mechanism, and the restraint changes no flexural buckling mode")
 	}
+}
+
+// prune leaves out the members that hang from a hinge: one end at a node
+// that nothing else holds (no other member, no support, no surface) and the
+// other end released in bending, so the member can swing freely (a
+// connection lost in the export). Repeated until none is left.
+func (r *frameReader) prune() {
+	m := r.fr.Model
+	held := make([]bool, len(m.Nodes))
+	for _, g := range r.fr.Planes {
+		for _, n := range g {
+			held[n] = true
+		}
+	}
+	keep := make([]bool, len(m.Members))
+	for j := range keep {
+		keep[j] = true
+	}
+	var dropped []string
+	for {
+		ends := make([]int, len(m.Nodes))
+		for j := range m.Members {
+			if keep[j] {
+				ends[m.Members[j].Nodes[0]]++
+				ends[m.Members[j].Nodes[1]]++
+			}
+		}
+		free := func(n int) bool { return ends[n] == 1 && m.Nodes[n].Support == nil && !held[n] }
+		changed := false
+		for j := range m.Members {
+			if !keep[j] {
+				continue
+			}
+			mb := &m.Members[j]
+			for e := 0; e < 2; e++ {
+				if !free(mb.Nodes[e]) {
+					continue
+				}
+				o := &mb.Ends[1-e]
+				hinged := (o.Released[4] && o.Stiffness[4] == 0) || (o.Released[5] && o.Stiffness[5] == 0)
+				if hinged || free(mb.Nodes[1-e]) {
+					keep[j] = false
+					changed = true
+					dropped = append(dropped, mb.ID)
+					break
+				}
+			}
+		}
+		if !changed {
+			break
+		}
+	}
+	if len(dropped) == 0 {
+		return
+	}
+	idx := make([]int, len(m.Members))
+	k := 0
+	for j := range m.Members {
+		idx[j] = -1
+		if keep[j] {
+			idx[j] = k
+			m.Members[k] = m.Members[j]
+			r.fr.Members[k] = r.fr.Members[j]
+			k++
+		}
+	}
+	m.Members = m.Members[:k]
+	r.fr.Members = r.fr.Members[:k]
+	for id, ps := range r.pieces {
+		out := ps[:0]
+		for _, j := range ps {
+			if idx[j] >= 0 {
+				out = append(out, idx[j])
+			}
+		}
+		if len(out) == 0 {
+			delete(r.pieces, id)
+		} else {
+			r.pieces[id] = out
+		}
+	}
+	msg := itoa(len(dropped)) + " member(s) hang from a hinge with their other end free (a lost connection?) and would swing freely: left out of the frame"
+	if len(dropped) <= 5 {
+		msg += " (" + strings.Join(dropped, ", ") + ")"
+	}
+	r.note(msg)
+	r.problem("frame-member-free", msg, "")
 }
