@@ -21,7 +21,7 @@ type frameReport struct {
 		FormA       *float64 `json:"lambda_form_a"`
 	} `json:"storeys"`
 	Frame *struct {
-		Nodes        int `json:"nodes"`
+		Nodes        int                   `json:"nodes"`
 		Members      []struct{ ID string } `json:"members"`
 		Combinations []struct {
 			Name    string   `json:"name"`
