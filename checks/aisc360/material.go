@@ -11,7 +11,7 @@ import (
 // grades give one minimum Fy for every thickness of the shapes here.
 
 // KSI is one ksi in MPa.
-const KSI = 6.894757
+const KSI = 6.894757293168361
 
 // astm is one entry of the table: a designation and, where the standard
 // distinguishes them, the grade letter; Fy of rectangular (and open)
