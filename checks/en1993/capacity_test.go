@@ -397,3 +397,31 @@ func TestMonotonic(t *testing.T) {
 		}
 	}
 }
+
+// TestTraceOnDemand: the steps rebuilt by Report.AppendTrace equal the
+// inline trace with scope full (the capacity steps are replayed too).
+// // common practice: a replayed trace must match the original
+func TestTraceOnDemand(t *testing.T) {
+	m := capColumn("C", props(t, he200b), 355, 4000)
+	m.Actions = []checks.Actions{
+		{Combination: "ULS-1", NStar: 800e3, Moments: [2]checks.AxisMoments{{Start: 40e6, End: -20e6}}},
+		{Combination: "ULS-2", NStar: 500e3, Moments: [2]checks.AxisMoments{{Start: 60e6, End: 60e6}, {Start: 5e6, End: 5e6}}},
+	}
+	inline := run(t, model(m), fullOptions())
+	opt := fullOptions()
+	opt.TraceOnDemand = true
+	rep := run(t, model(m), opt)
+	got := rep.AppendTrace(nil, 0)
+	want := inline.Elements[0].Trace
+	if len(got) != len(want) {
+		t.Fatalf("%d steps on demand, %d inline", len(got), len(want))
+	}
+	for k := range want {
+		if got[k].Quantity != want[k].Quantity || got[k].Value != want[k].Value && !(math.IsNaN(got[k].Value) && math.IsNaN(want[k].Value)) {
+			t.Fatalf("step %d: %s %v, want %s %v", k, got[k].Quantity, got[k].Value, want[k].Quantity, want[k].Value)
+		}
+	}
+	if step(&inline.Elements[0], "u,member-minor") == nil {
+		t.Error("no capacity step in the trace")
+	}
+}
