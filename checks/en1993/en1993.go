@@ -13,8 +13,8 @@
 // 1/(1 − 1/alpha_cr), null on braced axes; delta_b, beta_m and c_m are not
 // used (null); delta_m is delta_s on sway and leaning axes and 1 on braced
 // axes, whose member imperfections and second-order effects within the
-// member are covered by the member buckling check of 6.3 (the capacity
-// scope, not this package).
+// member are covered by the member buckling check of 6.3 (scope full,
+// below).
 //
 // A member fails (unstable) when alpha_cr ≤ 1 or when N_Ed reaches N_cr of
 // its braced (non-sway) buckling mode.
