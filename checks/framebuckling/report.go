@@ -30,7 +30,7 @@ func (a *Analysis) Report(m *checks.Model) *checks.FrameResult {
 	res := a.Result
 	if res == nil {
 		for _, name := range a.Combinations {
-			fr.Combinations = append(fr.Combinations, checks.FrameCombination{Name: name, LambdaC: checks.Null, Status: "not-analysed"})
+			fr.Combinations = append(fr.Combinations, checks.FrameCombination{Name: name, LambdaC: checks.Null, LambdaX: checks.Null, LambdaY: checks.Null, Status: "not-analysed"})
 		}
 		return fr
 	}

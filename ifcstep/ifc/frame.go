@@ -521,6 +521,37 @@ func (r *frameReader) readMembers() {
 			conns[m] = append(conns[m], rel)
 		}
 	}
+	// The physical elements linked to the curve members: a member without a
+	// section of its own takes its element's.
+	element := map[uint32]uint32{}
+	link := func(mem, el uint32) {
+		if inSet[mem] && !inSet[el] {
+			if _, dup := element[mem]; !dup {
+				element[mem] = el
+			}
+		}
+	}
+	for _, rel := range f.ByType("IFCRELASSIGNSTOPRODUCT") {
+		target, ok := rel.Attr(pAssignsTarget).Ref()
+		if !ok {
+			continue
+		}
+		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
+			link(id, target)
+			link(target, id)
+		})
+	}
+	for _, rel := range f.ByType("IFCRELCONNECTSSTRUCTURALELEMENT") {
+		el, ok1 := rel.Attr(pRelating).Ref()
+		mem, ok2 := rel.Attr(pRelated).Ref()
+		if ok1 && ok2 {
+			link(mem, el)
+		}
+	}
+	linked := make(map[uint32]bool, len(element))
+	for _, el := range element {
+		linked[el] = true
+	}
 	material := map[uint32]uint32{}
 	for _, rel := range f.ByType("IFCRELASSOCIATESMATERIAL") {
 		mat, ok := rel.Attr(pRelatingDef).Ref()
@@ -528,13 +559,14 @@ func (r *frameReader) readMembers() {
 			continue
 		}
 		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
-			if inSet[id] {
+			if inSet[id] || linked[id] {
 				if _, dup := material[id]; !dup {
 					material[id] = mat
 				}
 			}
 		})
 	}
+	fromElement := 0
 	r.pieces = map[uint32][]int{}
 	var noJ, noAxis, defaultE int
 	for _, in := range r.members {
@@ -544,6 +576,12 @@ func (r *frameReader) readMembers() {
 			continue
 		}
 		mem, why := r.section(in, material[in.ID()])
+		if el, ok := element[in.ID()]; ok && why != "" && material[el] != 0 {
+			if m2, why2 := r.section(in, material[el]); why2 == "" {
+				mem, why = m2, ""
+				fromElement++
+			}
+		}
 		if why != "" {
 			r.problem("frame-member-section", "analytical member "+ref(in)+": "+why+": left out of the frame", ref(in))
 			continue
@@ -642,6 +680,9 @@ func (r *frameReader) readMembers() {
 			r.fr.Model.Members = append(r.fr.Model.Members, mb)
 			r.fr.Members = append(r.fr.Members, fmk)
 		}
+	}
+	if fromElement > 0 {
+		r.note(itoa(fromElement) + " analytical member(s) without a section of their own take the section and material of the physical element linked to them")
 	}
 	if noJ > 0 {
 		r.note(itoa(noJ) + " member(s) have no torsion constant J (an outline profile): J is taken as 1 % of Iy + Iz, which only keeps their twist stable")
