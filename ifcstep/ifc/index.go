@@ -36,6 +36,25 @@ type relIndex struct {
 	elemProfProps map[uint32]uint32   // element -> IfcStructuralProfileProperties (IFC2X3)
 }
 
+// idSet is a set of instance ids as a bitmap: one bit per id up to the
+// largest added (instance ids are dense in IFC files).
+type idSet []uint64
+
+func (s *idSet) add(id uint32) {
+	w := int(id >> 6)
+	if w >= len(*s) {
+		n := make(idSet, max(w+1, 2*len(*s)))
+		copy(n, *s)
+		*s = n
+	}
+	(*s)[w] |= 1 << (id & 63)
+}
+
+func (s idSet) has(id uint32) bool {
+	w := int(id >> 6)
+	return w < len(s) && s[w]&(1<<(id&63)) != 0
+}
+
 // forRefs calls fn for every reference in a list value (or for a single
 // reference). It reads the list's bytes directly, without allocating, and
 // falls back to the reader's List for anything but plain "#N" items.
@@ -316,9 +335,12 @@ func (x *extractor) buildIndex(cs []candidate) {
 		}
 	}
 	types := map[uint32]bool{}
+	var related idSet // candidates and their types
 	for i := range cs {
+		related.add(cs[i].inst.ID())
 		if id := cs[i].typeObj.ID(); id != 0 {
 			types[id] = true
+			related.add(id)
 		}
 	}
 
@@ -328,7 +350,7 @@ func (x *extractor) buildIndex(cs []candidate) {
 	for _, h := range scan(x, x.f.ByType("IFCRELDEFINESBYPROPERTIES"), func(rel ifcstep.Instance, hits []objSet) []objSet {
 		var pset uint32
 		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
-			if _, isCand := pos[id]; !isCand && !types[id] {
+			if !related.has(id) {
 				return
 			}
 			if pset == 0 {

@@ -40,6 +40,7 @@ type materialInfo struct {
 	// order.
 	profiles []uint32
 	set      uint32 // the profile set, when there is one
+	tapered  bool   // an IfcMaterialProfileSetUsageTapering
 }
 
 // material resolves an IfcRelAssociatesMaterial.RelatingMaterial (cached).
@@ -86,9 +87,7 @@ func (x *extractor) material(id uint32) *materialInfo {
 		if set, ok := x.deref(in, in.Attr(pMatProfileSet)); ok {
 			addSet(set)
 		}
-		if in.Type() == "IFCMATERIALPROFILESETUSAGETAPERING" {
-			mi.notes = append(mi.notes, "tapered profile set usage: the start profile set is used")
-		}
+		mi.tapered = in.Type() == "IFCMATERIALPROFILESETUSAGETAPERING"
 	case "IFCMATERIALPROFILESET":
 		addSet(in)
 	case "IFCMATERIALPROFILE":

@@ -171,18 +171,25 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 	if pl, ok := x.deref(in, plV); ok {
 		world, worldOK = x.placement(pl)
 	}
-	b := x.body(in, repV)
-
 	// The profile: the material profile set (occurrence, else type), else
 	// the body extrusion.
 	var profiles []uint32
 	profRef := ""
+	tapered := false
 	for _, src := range []*materialInfo{mi, typeMI} {
 		if src != nil && len(src.profiles) > 0 {
-			profiles = src.profiles
+			profiles, tapered = src.profiles, src.tapered
 			profRef = refID(src.set)
 			break
 		}
+	}
+	// The body is read when it gives the profile, or the length and the
+	// elevations that no analytical member gives. A profile of a material
+	// profile set lies in the element's xy plane (the set usage's
+	// convention), whatever the body's extrusion says.
+	var b bodyInfo
+	if len(profiles) != 1 || aux.am == nil {
+		b = x.body(in, repV)
 	}
 	var prof ifcstep.Instance
 	var ext *extrusion
@@ -224,9 +231,14 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 		// section comes from the material profile set.
 		ext = &b.extrusions[0]
 	}
-	if ext != nil && ext.tapered {
+	switch {
+	case ext != nil && ext.tapered:
 		m.Problems = append(m.Problems, checks.Reason{Code: checks.CodeUnsupportedProfile,
 			Message: "tapered extrusion " + ref(ext.solid) + ": the section varies along the member", Ref: ref(ext.solid)})
+		prof = ifcstep.Instance{}
+	case tapered && prof.ID() != 0:
+		m.Problems = append(m.Problems, checks.Reason{Code: checks.CodeUnsupportedProfile,
+			Message: "tapered material profile set usage " + profRef + ": the section varies along the member", Ref: profRef})
 		prof = ifcstep.Instance{}
 	}
 
@@ -246,7 +258,7 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 		axisDir = ext.dir
 	}
 	plane := identity
-	if ext != nil && ext.profile.ID() == prof.ID() {
+	if len(profiles) == 0 && ext != nil && ext.profile.ID() == prof.ID() {
 		plane = ext.plane
 	}
 

@@ -1,6 +1,7 @@
 package ifc
 
 import (
+	"bytes"
 	"strings"
 
 	"swaygate/ifcstep"
@@ -20,7 +21,11 @@ type propList []prop
 // properties reads the IfcPropertySingleValue entries listed in attribute at
 // of set (IfcPropertySet.HasProperties, IfcMaterialProperties.Properties...).
 func (x *extractor) properties(set ifcstep.Instance, pos int) propList {
-	list := set.Attr(pos)
+	return x.propertiesOf(set, set.Attr(pos))
+}
+
+// propertiesOf reads the property entries of list, an attribute of set.
+func (x *extractor) propertiesOf(set ifcstep.Instance, list ifcstep.Value) propList {
 	n := 0
 	forRefs(list, func(uint32) { n++ })
 	out := make(propList, 0, n)
@@ -58,38 +63,46 @@ func (p propList) findValue(name ifcstep.Value) (prop, bool) {
 }
 
 // textIs reports whether a string value equals name, ignoring ASCII case.
-// A plain literal (no escapes) is compared in place, without decoding.
+// A literal is compared in place, without decoding: escapes only make the
+// written form longer than the text, so a literal of the name's length is
+// compared byte by byte and only a longer one with escapes is decoded.
 func textIs(v ifcstep.Value, name string) bool {
 	raw := v.Raw()
-	if v.Kind() == ifcstep.KindString && len(raw) >= 2 {
-		in := raw[1 : len(raw)-1]
-		plain := true
-		for _, c := range in {
-			if c == '\\' || c == '\'' || c >= 0x80 {
-				plain = false
-				break
-			}
+	if v.Kind() != ifcstep.KindString || len(raw) < 2 {
+		return v.Kind() == ifcstep.KindTyped && strings.EqualFold(text(v), name)
+	}
+	in := raw[1 : len(raw)-1]
+	switch {
+	case len(in) < len(name):
+		return false
+	case len(in) > len(name):
+		if bytes.IndexByte(in, '\\') < 0 && bytes.IndexByte(in, '\'') < 0 && !hasHighByte(in) {
+			return false
 		}
-		if plain {
-			if len(in) != len(name) {
-				return false
-			}
-			for i := range in {
-				a, b := in[i], name[i]
-				if 'A' <= a && a <= 'Z' {
-					a += 'a' - 'A'
-				}
-				if 'A' <= b && b <= 'Z' {
-					b += 'a' - 'A'
-				}
-				if a != b {
-					return false
-				}
-			}
+		return strings.EqualFold(text(v), name)
+	}
+	for i := range in {
+		a, b := in[i], name[i]
+		if 'A' <= a && a <= 'Z' {
+			a += 'a' - 'A'
+		}
+		if 'A' <= b && b <= 'Z' {
+			b += 'a' - 'A'
+		}
+		if a != b {
+			return false
+		}
+	}
+	return true
+}
+
+func hasHighByte(b []byte) bool {
+	for _, c := range b {
+		if c >= 0x80 {
 			return true
 		}
 	}
-	return strings.EqualFold(text(v), name)
+	return false
 }
 
 // number returns a numeric property converted to internal units (quantity q

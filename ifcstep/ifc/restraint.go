@@ -49,33 +49,47 @@ func (x *extractor) memberPsets(c *candidate) psets {
 // (each property name taken from the first set that has it), and the
 // reference of the set that gave them.
 func (x *extractor) named(sets []ifcstep.Instance, name string) (propList, string) {
-	var match []ifcstep.Instance
-	for _, s := range sets {
-		if s.Type() == "IFCPROPERTYSET" && psetIs(s, name) {
-			match = append(match, s)
-		}
-	}
-	switch len(match) {
-	case 0:
-		return nil, ""
-	case 1:
-		return x.properties(match[0], pPsetProps), ref(match[0])
-	}
 	var out propList
-	for _, s := range match {
-		for _, p := range x.properties(s, pPsetProps) {
+	at0 := ""
+	n := 0
+	for _, s := range sets {
+		if s.Type() != "IFCPROPERTYSET" {
+			continue
+		}
+		var ab [5]ifcstep.Value
+		vs := attrsOf(s, ab[:])
+		if !textIs(at(vs, pName), name) {
+			continue
+		}
+		props := x.propertiesOf(s, at(vs, pPsetProps))
+		n++
+		if n == 1 {
+			out, at0 = props, ref(s)
+			continue
+		}
+		for _, p := range props {
 			if _, dup := out.findValue(p.name); !dup {
 				out = append(out, p)
 			}
 		}
 	}
-	return out, ref(match[0])
+	return out, at0
+}
+
+// designNames are the per-axis properties of Swaygate_ColumnDesign.
+var designNames = [2]struct{ sway, ke, braced, length, transverse string }{
+	{"SwayMajor", "EffectiveLengthFactorMajor", "BracedEffectiveLengthFactorMajor", "BucklingLengthMajor", "TransverseLoadMajor"},
+	{"SwayMinor", "EffectiveLengthFactorMinor", "BracedEffectiveLengthFactorMinor", "BucklingLengthMinor", "TransverseLoadMinor"},
 }
 
 // restraint reads Swaygate_ColumnDesign (occurrence, then type) into the
 // member's axes. Problems found are added to m.Problems.
 func (x *extractor) restraint(m *checks.Member, ps psets) {
-	props, at := x.named(append(append([]ifcstep.Instance{}, ps.occ...), ps.typ...), psetColumnDesign)
+	sets := ps.occ
+	if len(ps.typ) > 0 {
+		sets = append(append([]ifcstep.Instance{}, ps.occ...), ps.typ...)
+	}
+	props, at := x.named(sets, psetColumnDesign)
 	if at == "" {
 		return // the engine reports missing-restraint per axis
 	}
@@ -100,48 +114,45 @@ func (x *extractor) restraint(m *checks.Member, ps psets) {
 	}
 	for _, a := range checks.Axes {
 		ax := &m.Axes[a]
-		suffix := "Major"
-		if a == checks.Minor {
-			suffix = "Minor"
-		}
+		n := &designNames[a]
 		axis := a.String()
 		ax.Source = "property-set"
-		sway, present, ok := props.boolean("Sway" + suffix)
+		sway, present, ok := props.boolean(n.sway)
 		switch {
 		case ok && sway:
 			ax.Restraint = checks.Sway
 		case ok:
 			ax.Restraint = checks.Braced
 		case present:
-			problem(checks.CodeInvalidRestraint, psetColumnDesign+".Sway"+suffix+" is not a boolean", axis)
+			problem(checks.CodeInvalidRestraint, psetColumnDesign+"."+n.sway+" is not a boolean", axis)
 		}
-		if ke, ok := props.number(x, "EffectiveLengthFactor"+suffix, qNone); ok {
+		if ke, ok := props.number(x, n.ke, qNone); ok {
 			if ke > 0 {
 				ax.Ke = ke
 			} else {
 				ax.Ke = -1 // the engine reports invalid-restraint
 				if ke == 0 {
-					problem(checks.CodeInvalidRestraint, psetColumnDesign+".EffectiveLengthFactor"+suffix+" is 0", axis)
+					problem(checks.CodeInvalidRestraint, psetColumnDesign+"."+n.ke+" is 0", axis)
 				}
 			}
 		} else if endGiven[0] || endGiven[1] {
 			x.keFromEnds(ax, ends, endGiven, axis, problem)
 		}
-		if bke, ok := props.number(x, "BracedEffectiveLengthFactor"+suffix, qNone); ok {
+		if bke, ok := props.number(x, n.braced, qNone); ok {
 			if bke > 0 {
 				ax.BracedKe = bke
 			} else {
-				problem(checks.CodeInvalidRestraint, psetColumnDesign+".BracedEffectiveLengthFactor"+suffix+" must be positive", axis)
+				problem(checks.CodeInvalidRestraint, psetColumnDesign+"."+n.braced+" must be positive", axis)
 			}
 		}
-		if bl, ok := props.number(x, "BucklingLength"+suffix, qLength); ok {
+		if bl, ok := props.number(x, n.length, qLength); ok {
 			if bl > 0 {
 				ax.BucklingLength = bl
 			} else {
-				problem(checks.CodeInvalidRestraint, psetColumnDesign+".BucklingLength"+suffix+" must be positive", axis)
+				problem(checks.CodeInvalidRestraint, psetColumnDesign+"."+n.length+" must be positive", axis)
 			}
 		}
-		if t, _, ok := props.boolean("TransverseLoad" + suffix); ok {
+		if t, _, ok := props.boolean(n.transverse); ok {
 			ax.TransverseLoad = t
 		}
 	}
