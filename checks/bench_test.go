@@ -92,23 +92,23 @@ func BenchmarkRun(b *testing.B) {
 		}
 	}
 	b.Run("trace=none", func(b *testing.B) {
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		opt.Trace = "none"
 		run(b, opt, false)
 	})
 	b.Run("trace=full", func(b *testing.B) {
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		opt.TraceOnDemand = true
 		run(b, opt, true)
 	})
 	b.Run("trace=summary", func(b *testing.B) {
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		opt.Trace = "summary"
 		opt.TraceOnDemand = true
 		run(b, opt, true)
 	})
 	b.Run("trace=summary/stored", func(b *testing.B) {
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		opt.Trace = "summary"
 		run(b, opt, false)
 	})
@@ -118,7 +118,7 @@ func BenchmarkRun(b *testing.B) {
 // passing columns, so the pass path is what is measured. (Invented demo
 // data; no check values.) // common practice: benchmark inputs are realistic
 func TestBenchModelVerdicts(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Trace = "none"
 	rep, err := checks.Run(benchModel(2000, 10), as4100.New(), opt)
 	if err != nil {

@@ -96,7 +96,7 @@ func TestOptionErrors(t *testing.T) {
 		func(o *checks.Options) { o.Modulus = -1 },
 		func(o *checks.Options) { o.Defaults[0] = checks.RestraintDefault{Restraint: checks.Sway, Ke: 0.7} },
 	} {
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		edit(&opt)
 		if _, err := checks.Run(testModel(), as4100.New(), opt); !errors.Is(err, checks.ErrOption) {
 			t.Errorf("%+v: err %v", opt, err)
@@ -124,7 +124,7 @@ func (capacityRules) Capacity(cx *checks.CombinationContext, out *checks.Combina
 }
 
 func TestCapacityHook(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	rep, err := checks.Run(testModel(), capacityRules{as4100.New()}, opt)
 	if err != nil {
@@ -177,7 +177,7 @@ func (p *constProvider) MemberNotes(int, []checks.Reason) []checks.Reason { retu
 // TestRunWithProvider: a model-wide provider plugs in without rule-set
 // changes; the trace names the frame clause.
 func TestRunWithProvider(t *testing.T) {
-	rep, err := checks.RunWith(testModel(), as4100.New(), &constProvider{lambda: 8}, checks.DefaultOptions())
+	rep, err := checks.RunWith(testModel(), as4100.New(), &constProvider{lambda: 8}, stabilityOptions())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -205,7 +205,7 @@ func TestModelPassThrough(t *testing.T) {
 	m.Warnings = []checks.Reason{{Code: checks.CodeUnknownGlobalID, Message: "x"}}
 	m.Assumptions = []string{"reader assumption"}
 	m.Skipped = []checks.Skipped{{GlobalID: "C", Reason: checks.CodeNotSteel}}
-	rep, err := checks.Run(m, as4100.New(), checks.DefaultOptions())
+	rep, err := checks.Run(m, as4100.New(), stabilityOptions())
 	if err != nil {
 		t.Fatal(err)
 	}

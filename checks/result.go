@@ -52,7 +52,7 @@ func DefaultOptions() Options {
 	return Options{
 		Standard:      "as4100",
 		SwayMethod:    "storey",
-		Scope:         "stability",
+		Scope:         "full",
 		Trace:         "full",
 		NZSProvisions: "default",
 		AISCMethod:    "lrfd",

@@ -28,7 +28,7 @@ const (
 )
 
 func optMethod(method string) checks.Options {
-	o := checks.DefaultOptions()
+	o := stabilityOptions()
 	o.AISCMethod = method
 	return o
 }
@@ -55,7 +55,7 @@ func TestCommentaryCase1(t *testing.T) {
 		m.Axes[checks.Major].TransverseLoad = true
 		m.Actions = []checks.Actions{{Combination: "LRFD", NStar: tc.pKip * kip,
 			Moments: [2]checks.AxisMoments{{Peak: 235.2 * kipIn, Transverse: true}}}}
-		rep := run(t, model(m), checks.DefaultOptions())
+		rep := run(t, model(m), stabilityOptions())
 		el := &rep.Elements[0]
 		ax := &el.Combinations[0].Axes[checks.Major]
 		// source: standards-notes §6.1 [D]: P_e1 = pi^2 EI/L^2 = 1227.1 kips
@@ -119,7 +119,7 @@ func TestCommentaryCase2(t *testing.T) {
 		m := model(ms...)
 		m.StoreyData = []checks.StoreyData{{StoreyKey: "S", Direction: checks.DirY, Combination: "LRFD",
 			ShearN: 1 * kip, DriftMM: drift, HeightMM: w14L}}
-		rep := run(t, m, checks.DefaultOptions())
+		rep := run(t, m, stabilityOptions())
 		el := &rep.Elements[0]
 		ax := &el.Combinations[0].Axes[checks.Major]
 		if got := ax.MAmp.F() / kipIn; math.Abs(got-tc.mr) > 0.1 {
@@ -162,7 +162,7 @@ func TestCm(t *testing.T) {
 		m := column("M", iFor(4000e3, 4000), iFor(40_000e3, 4000))
 		m.Axes[checks.Major].TransverseLoad = tc.transverse
 		m.Actions = []checks.Actions{act("ULS", 1000, tc.start, tc.end)}
-		rep := run(t, model(m), checks.DefaultOptions())
+		rep := run(t, model(m), stabilityOptions())
 		ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 		near(t, tc.name+" M1/M2", ax.BetaM, tc.ratio, 1e-12)
 		near(t, tc.name+" C_m", ax.Cm, tc.cm, 1e-12)
@@ -262,7 +262,7 @@ func TestSplitMoments(t *testing.T) {
 	m := swayAlone(5) // B2 = 1.25; P_r/P_e1 = 0.05
 	m.Actions[0].Moments[0] = checks.AxisMoments{Start: -20e6, End: 100e6,
 		Split: &checks.SplitMoments{NtStart: 40e6, NtEnd: 40e6, LtStart: -60e6, LtEnd: 60e6}}
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	ax := &el.Combinations[0].Axes[checks.Major]
 	b1 := 1 / (1 - 0.05) // source: AISC 360 A-8-3, A-8-4 (nt moments in single curvature: C_m = 1)
@@ -275,7 +275,7 @@ func TestSplitMoments(t *testing.T) {
 	noReason(t, el, checks.CodeTotalMomentAmplified)
 
 	m.Actions[0].Moments[0].Split = nil
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	el = &rep.Elements[0]
 	ax = &el.Combinations[0].Axes[checks.Major]
 	// source: design §5.3 (total moment amplified by max(B1, B2)): total ends -20/100 reverse, C_m = 0.52, B1 = 1, so 1.25·100 [D]
@@ -298,7 +298,7 @@ func TestStoreyFormA(t *testing.T) {
 		g.Actions = []checks.Actions{act("ULS", 1200, 0, 0)}
 		return model(c1, c2, g)
 	}
-	rep := run(t, build(), checks.DefaultOptions())
+	rep := run(t, build(), stabilityOptions())
 	st := &rep.Storeys[0]
 	// source: standards-notes §1.3 [D]: form A = 10 000/2800 = 3.571 (form B 2.941 not used)
 	near(t, "storey lambda_c", st.LambdaC, 3.5714, 1e-4)
@@ -341,7 +341,7 @@ func TestRM(t *testing.T) {
 // TestOptions: scope full, the member method, second-order actions and the
 // default modulus.
 func TestOptions(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	// Scope full is accepted; a section without a plate model cannot be
 	// classified (AISC 360 Table B4.1), so the member needs analysis.
 	opt.Scope = "full"
@@ -359,7 +359,7 @@ func TestOptions(t *testing.T) {
 	b := swayColumn("B", "L1", 2000e3)
 	a.Actions = []checks.Actions{act("ULS", 1000, 10, 20)}
 	b.Actions = []checks.Actions{act("ULS", 1000, 10, 20)}
-	opt = checks.DefaultOptions()
+	opt = stabilityOptions()
 	opt.SwayMethod = "member"
 	rep = run(t, model(a, b), opt)
 	// source: design §5.3 (member method: the member's own P_e2/P_r): B2 = 1/(1 - 1/6), 1/(1 - 1/2) [D]
@@ -373,7 +373,7 @@ func TestOptions(t *testing.T) {
 	// Second-order actions: B2 = 1 whatever lambda_c, B1 still applies.
 	m := swayAlone(2)
 	m.Actions[0].Theory = checks.SecondOrder
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	ax := &rep.Elements[0].Combinations[0].Axes[0]
 	near(t, "B2 (second order)", ax.DeltaS, 1, 0) // source: AISC 360 App. 8.1 (P-Delta included in the analysis), design §5.3
 	noReason(t, &rep.Elements[0], checks.CodeSecondOrderRequired)
@@ -383,7 +383,7 @@ func TestOptions(t *testing.T) {
 	m = column("E", iFor(4000e3, 4000), iFor(4000e3, 4000))
 	m.Material = checks.Material{}
 	m.Actions = []checks.Actions{act("ULS", 1000, 10, 10)}
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	if el := &rep.Elements[0]; el.E != 200_000 || el.ESource != "default" { // source: standards-notes §4, AISC 360 E3 (29 000 ksi)
 		t.Errorf("E = %v (%s)", el.E, el.ESource)
 	}
@@ -391,7 +391,7 @@ func TestOptions(t *testing.T) {
 
 // TestTrace: the trace names AISC quantities and App. 8 equations.
 func TestTrace(t *testing.T) {
-	rep := run(t, model(swayAlone(5)), checks.DefaultOptions())
+	rep := run(t, model(swayAlone(5)), stabilityOptions())
 	el := &rep.Elements[0]
 	want := map[string]string{
 		"alpha":          "AISC 360 App. 8 (A-8-3)",
@@ -423,7 +423,7 @@ func TestCurvatureUnknown(t *testing.T) {
 	m := column("M", iFor(4000e3, 4000), iFor(40_000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", 1000, 100, -100)}
 	m.Actions[0].Moments[0].CurvatureUnknown = true
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	near(t, "M1/M2", ax.BetaM, -1, 0)
 	near(t, "C_m", ax.Cm, 1, 0)            // source: AISC 360 A-8-4 (standards-notes §4 [C]): single curvature, uniform moment

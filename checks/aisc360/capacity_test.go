@@ -66,7 +66,7 @@ func usColumn(p *section.Properties, fy, l float64) checks.Member {
 }
 
 func fullOptions() checks.Options {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	return opt
 }
@@ -296,7 +296,7 @@ func TestVerdicts(t *testing.T) {
 	if r := wantReason(t, el, checks.CodeCapacityExceeded, ""); r != nil && !strings.Contains(r.Message, aisc360.CheckCompression) {
 		t.Errorf("message %q", r.Message)
 	}
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	wantVerdict(t, &rep.Elements[0], checks.Pass)
 	null(t, "governing utilisation", rep.Elements[0].GoverningUtilisation)
 	if len(rep.Elements[0].Combinations[0].Capacity) != 0 || step(&rep.Elements[0], "F_y") != nil {

@@ -37,7 +37,7 @@ func TestBracedRegression(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			mm := m
 			mm.Actions = []checks.Actions{act("ULS", tc.nKN, tc.start, tc.end)}
-			rep := runAS(t, model(mm), checks.DefaultOptions())
+			rep := runAS(t, model(mm), stabilityOptions())
 			ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 			near(t, "Nomb", ax.Nomb, nomb, 0.5e3)
 			near(t, "beta_m", ax.BetaM, tc.beta, 1e-12)
@@ -98,7 +98,7 @@ func TestSwayLimitBoundary(t *testing.T) {
 		{3, 1.5, checks.NeedsAnalysis},       // source: standards-notes §6.5 [D]: above 1.4, second-order required
 	}
 	for _, tc := range cases {
-		rep := runAS(t, model(swayAlone("S", tc.lambda)), checks.DefaultOptions())
+		rep := runAS(t, model(swayAlone("S", tc.lambda)), stabilityOptions())
 		el := &rep.Elements[0]
 		ax := &el.Combinations[0].Axes[checks.Major]
 		near(t, "lambda_c", ax.LambdaC, tc.lambda, 1e-9)
@@ -139,7 +139,7 @@ func TestStoreyDrift(t *testing.T) {
 			m := storeyModel(tc.sumNkN/2, tc.sumNkN/2)
 			m.StoreyData = []checks.StoreyData{{StoreyKey: "#10", Direction: checks.DirY, Combination: "ULS",
 				ShearN: tc.vkN * 1e3, DriftMM: tc.driftMM, HeightMM: tc.hMM}}
-			rep := runAS(t, m, checks.DefaultOptions())
+			rep := runAS(t, m, stabilityOptions())
 			st := storeyRow(t, rep, checks.DirY)
 			near(t, "storey lambda", st.LambdaC, tc.lambda, 1e-3)
 			near(t, "form drift", st.FormDrift, tc.lambda, 1e-3)
@@ -186,7 +186,7 @@ func TestOpenCalcsBenchmarks(t *testing.T) {
 	// source: standards-notes §6.5 [L] (OpenCalcs): N* = 500, Nomb = 1000, beta_m = -1: delta = 2.0, second-order required
 	m := column("OC1", iFor(1000e3, 4000), iFor(5000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", 500, 10, 10)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	near(t, "delta_b", ax.DeltaB, 2.0, 1e-9)
 	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
@@ -195,7 +195,7 @@ func TestOpenCalcsBenchmarks(t *testing.T) {
 	// source: standards-notes §6.5 [L] (OpenCalcs): beta_m = +1, N*/Nomb = 0.1: cm = 0.2, delta_b = 1.0
 	m = column("OC2", iFor(1000e3, 4000), iFor(5000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", 100, 10, -10)}
-	rep = runAS(t, model(m), checks.DefaultOptions())
+	rep = runAS(t, model(m), stabilityOptions())
 	ax = &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	near(t, "c_m", ax.Cm, 0.2, 1e-12)
 	near(t, "delta_b", ax.DeltaB, 1.0, 1e-12)
@@ -211,7 +211,7 @@ func TestEulerClosedForms(t *testing.T) {
 	m.Length = l
 	m.Axes[checks.Major] = checks.AxisInput{Restraint: checks.Sway, Ke: 2, Direction: checks.DirY}
 	m.Actions = []checks.Actions{act("ULS", 100, 10, 0)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	c := &rep.Elements[0].Combinations[0]
 	near(t, "Noms (cantilever)", c.Axes[checks.Major].Nom, cantilever, 1e-9*cantilever)
 	near(t, "Nomb (braced ke 1.0)", c.Axes[checks.Major].Nomb, pin, 1e-9*pin)
@@ -227,7 +227,7 @@ func TestStoreyLeaningColumn(t *testing.T) {
 	lean.StoreyKey, lean.Storey = "#10", "Level 1"
 	lean.Actions = []checks.Actions{act("ULS", 1200, 0, 0)}
 	m.Members = append(m.Members, lean)
-	rep := runAS(t, m, checks.DefaultOptions())
+	rep := runAS(t, m, stabilityOptions())
 
 	st := storeyRow(t, rep, checks.DirY)
 	near(t, "form A", st.FormA, 3.571, 1e-3)     // source: standards-notes §1.3 [D]
@@ -316,7 +316,7 @@ func TestBetaMSigns(t *testing.T) {
 			m.Axes[checks.Major].TransverseLoad = tc.transverse
 			m.Axes[checks.Major].BucklingLength = tc.lb
 			m.Actions = []checks.Actions{act("ULS", 100, tc.start, tc.end)}
-			rep := runAS(t, model(m), checks.DefaultOptions())
+			rep := runAS(t, model(m), stabilityOptions())
 			ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 			near(t, "beta_m", ax.BetaM, tc.beta, 1e-12)
 			near(t, "c_m", ax.Cm, math.Min(1, 0.6-0.4*tc.beta), 1e-12) // source: AS 4100 4.4.2.2

@@ -78,7 +78,7 @@ func BenchmarkRunFull(b *testing.B) {
 	for _, scope := range []string{"stability", "full"} {
 		for _, trace := range []string{"none", "summary"} {
 			b.Run("scope="+scope+"/trace="+trace, func(b *testing.B) {
-				opt := checks.DefaultOptions()
+				opt := stabilityOptions()
 				opt.Scope = scope
 				opt.Trace = trace
 				opt.TraceOnDemand = true
@@ -104,7 +104,7 @@ func BenchmarkRunFull(b *testing.B) {
 // pass with scope full, so the pass path is what is measured.
 // // common practice: benchmark inputs are realistic
 func TestFullBenchModelVerdicts(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	opt.Trace = "none"
 	rep, err := checks.Run(fullBenchModel(2000, 10), as4100.New(), opt)

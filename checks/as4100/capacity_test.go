@@ -15,7 +15,7 @@ import (
 
 // fullOpt are the default options with the capacity checks.
 func fullOpt() checks.Options {
-	o := checks.DefaultOptions()
+	o := stabilityOptions()
 	o.Scope = "full"
 	return o
 }
@@ -402,7 +402,7 @@ func TestStabilityScopeUnchanged(t *testing.T) {
 	noFy := capMember(t, "N", uc, "", 0, 4000, axial(200, 0, 0, 0, 0))                    // missing-material in scope full
 	near95 := capMember(t, "B", uc, "", 300, 8000, axial(0, 0, 0, 0, 0))                  // 95 % of Nomb: fails in scope full
 	near95.Actions[0].NStar = 0.95 * checks.Euler(e, near95.Section.IMinor, 8000)
-	rep, err := checks.Run(model(heavy, noFy, near95), as4100.New(), checks.DefaultOptions())
+	rep, err := checks.Run(model(heavy, noFy, near95), as4100.New(), stabilityOptions())
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -79,7 +79,7 @@ func TestMissingData(t *testing.T) {
 			tc.edit(&m)
 			md := model(m)
 			md.Combinations = []string{"ULS"}
-			rep := runAS(t, md, checks.DefaultOptions())
+			rep := runAS(t, md, stabilityOptions())
 			el := &rep.Elements[0]
 			wantVerdict(t, el, checks.NeedsAnalysis)
 			wantReason(t, el, tc.code, tc.axis)
@@ -105,7 +105,7 @@ func TestMissingActionsNamesCombination(t *testing.T) {
 	b := column("B", iFor(8000e3, 4000), iFor(4000e3, 4000))
 	md := model(a, b)
 	md.Combinations = []string{"ULS1", "ULS2"}
-	rep := runAS(t, md, checks.DefaultOptions())
+	rep := runAS(t, md, stabilityOptions())
 	r := wantReason(t, &rep.Elements[0], checks.CodeMissingActions, "")
 	if r != nil && r.Combination != "ULS2" {
 		t.Errorf("missing-actions of A names %q, want ULS2", r.Combination)
@@ -125,7 +125,7 @@ func TestMissingActionsNamesCombination(t *testing.T) {
 // TestNoDesignCombinations: a model with no combination is needs-analysis.
 // source: design §4.2, §5.4 (no-design-combinations)
 func TestNoDesignCombinations(t *testing.T) {
-	rep := runAS(t, model(column("A", 1e8, 1e8)), checks.DefaultOptions())
+	rep := runAS(t, model(column("A", 1e8, 1e8)), stabilityOptions())
 	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
 	wantReason(t, &rep.Elements[0], checks.CodeNoDesignCombinations, "")
 	if len(rep.Warnings) == 0 || rep.Warnings[0].Code != checks.CodeNoDesignCombinations {
@@ -145,7 +145,7 @@ func TestSecondOrderResults(t *testing.T) {
 		}
 		return m
 	}
-	rep := runAS(t, build(), checks.DefaultOptions())
+	rep := runAS(t, build(), stabilityOptions())
 	el := &rep.Elements[0]
 	ax := &el.Combinations[0].Axes[checks.Major]
 	near(t, "delta_s", ax.DeltaS, 1, 0)
@@ -164,11 +164,11 @@ func TestSecondOrderResults(t *testing.T) {
 	for k := range fo.Members {
 		fo.Members[k].Actions[0].Theory = checks.FirstOrder
 	}
-	rep = runAS(t, fo, checks.DefaultOptions())
+	rep = runAS(t, fo, stabilityOptions())
 	near(t, "first-order delta_s", rep.Elements[0].Combinations[0].Axes[0].DeltaS, 1/(1-1500.0/5000), 1e-12) // source: AS 4100 4.4.2.3
 	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
 
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.MemberPDeltaModelled = true
 	rep = runAS(t, build(), opt)
 	ax = &rep.Elements[0].Combinations[0].Axes[checks.Major]
@@ -185,7 +185,7 @@ func TestSecondOrderResults(t *testing.T) {
 func TestTensionMember(t *testing.T) {
 	m := storeyModel(1000, -200)
 	m.Members[1].Actions[0].Moments[1] = checks.AxisMoments{Start: 5e6, End: 5e6}
-	rep := runAS(t, m, checks.DefaultOptions())
+	rep := runAS(t, m, stabilityOptions())
 	el := &rep.Elements[1]
 	wantReason(t, el, checks.CodeNotInCompression, "")
 	maj, min := &el.Combinations[0].Axes[checks.Major], &el.Combinations[0].Axes[checks.Minor]
@@ -211,7 +211,7 @@ func TestRestraintDefaults(t *testing.T) {
 	m := column("D", iFor(6000e3, 4000*1.2), iFor(3000e3, 4000))
 	m.Axes[checks.Major] = checks.AxisInput{Direction: checks.DirY}
 	m.Actions = []checks.Actions{act("ULS", 300, 30, -30)}
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Defaults[checks.Major] = checks.RestraintDefault{Restraint: checks.Sway, Ke: 1.2}
 	rep := runAS(t, model(m), opt)
 	el := &rep.Elements[0]
@@ -230,7 +230,7 @@ func TestRestraintDefaults(t *testing.T) {
 	wantVerdict(t, el, checks.Pass)
 
 	// No default: missing-restraint.
-	rep = runAS(t, model(m), checks.DefaultOptions())
+	rep = runAS(t, model(m), stabilityOptions())
 	wantReason(t, &rep.Elements[0], checks.CodeMissingRestraint, "major")
 	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
 }
@@ -245,7 +245,7 @@ func TestStoreyIncomplete(t *testing.T) {
 	lean.Actions = []checks.Actions{act("ULS", 400, 0, 0)}
 	m.Members = append(m.Members, lean)
 	m.Members[2].Actions = nil
-	rep := runAS(t, m, checks.DefaultOptions())
+	rep := runAS(t, m, stabilityOptions())
 	st := storeyRow(t, rep, checks.DirY)
 	if st.Complete || st.LambdaC.Known() || len(st.Reasons) == 0 || st.Reasons[0].Code != checks.CodeStoreyIncomplete {
 		t.Errorf("storey row %+v", *st)
@@ -270,7 +270,7 @@ func TestStoreyIncomplete(t *testing.T) {
 	// sums unknown.
 	m = storeyModel(500, 500)
 	m.Members[1].Section = nil
-	rep = runAS(t, m, checks.DefaultOptions())
+	rep = runAS(t, m, stabilityOptions())
 	wantReason(t, &rep.Elements[0], checks.CodeStoreyIncomplete, "major")
 	// A column without restraint data gives load, no stiffness.
 	m = storeyModel(500, 500)
@@ -279,7 +279,7 @@ func TestStoreyIncomplete(t *testing.T) {
 	nr.Axes[checks.Major] = checks.AxisInput{Direction: checks.DirY}
 	nr.Actions = []checks.Actions{act("ULS", 1000, 0, 0)}
 	m.Members = append(m.Members, nr)
-	rep = runAS(t, m, checks.DefaultOptions())
+	rep = runAS(t, m, stabilityOptions())
 	st = storeyRow(t, rep, checks.DirY)
 	// source: standards-notes §1.3 [D]: form A = 10000/2000 = 5, form B =
 	// 5000·500·2/(500²·2 + 1000²) = 3.333; the lower is used (design §5.3).
@@ -296,7 +296,7 @@ func TestMixedSwayFlags(t *testing.T) {
 	lean.StoreyKey = "#10"
 	lean.Actions = []checks.Actions{act("ULS", 500, 30, 15)}
 	m.Members = append(m.Members, lean)
-	rep := runAS(t, m, checks.DefaultOptions())
+	rep := runAS(t, m, stabilityOptions())
 	el := &rep.Elements[2]
 	wantReason(t, el, checks.CodeMixedSwayFlags, "major")
 	ax := &el.Combinations[0].Axes[checks.Major]
@@ -320,7 +320,7 @@ func TestKeWarnings(t *testing.T) {
 	m := column("K", iFor(8000e3, 4000), iFor(8000e3, 4000))
 	m.Axes[checks.Minor].Ke = 1.2
 	m.Actions = []checks.Actions{act("ULS", 100, 10, 10)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	wantReason(t, &rep.Elements[0], checks.CodeUnusualKe, "minor")
 	wantVerdict(t, &rep.Elements[0], checks.Pass)
 }
@@ -332,7 +332,7 @@ func TestAssumedModulus(t *testing.T) {
 	m := column("E", 1e8, 5e7)
 	m.Material = checks.Material{}
 	m.Actions = []checks.Actions{act("ULS", 100, 10, 10)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	if el.E != 200_000 || el.ESource != "default" {
 		t.Errorf("E %v from %q", el.E, el.ESource)
@@ -341,7 +341,7 @@ func TestAssumedModulus(t *testing.T) {
 	if !hasAssumption(rep, "E = 200000 MPa") {
 		t.Errorf("assumptions %q", rep.Assumptions)
 	}
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Modulus = 205_000
 	rep = runAS(t, model(m), opt)
 	if el := &rep.Elements[0]; el.E != 205_000 || el.ESource != "request" {
@@ -361,7 +361,7 @@ func TestStoreyGeometry(t *testing.T) {
 	m.Members[3].TopZ = 4300 // 7.5 % of the storey height 4000
 	m.Members[4].TopZ = 4500 // 12.5 %
 	m.Members[4].BaseZ = 500 // its own length still 4000
-	rep := runAS(t, m, checks.DefaultOptions())
+	rep := runAS(t, m, stabilityOptions())
 	wantReason(t, &rep.Elements[4], checks.CodeStoreyGeometry, "")
 	noReason(t, &rep.Elements[3], checks.CodeStoreyGeometry)
 	wantVerdict(t, &rep.Elements[4], checks.Pass)
@@ -372,7 +372,7 @@ func TestStoreyGeometry(t *testing.T) {
 func TestUnstable(t *testing.T) {
 	m := column("U", iFor(1000e3, 4000), iFor(5000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", 1000, 10, 10)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	wantVerdict(t, el, checks.Fail)
 	wantReason(t, el, checks.CodeUnstable, "major")
@@ -381,7 +381,7 @@ func TestUnstable(t *testing.T) {
 
 	st := storeyModel(4000, 4000, 4000)     // Nomb = 5000 > N*, lambda = 1.25
 	st.Members[0].Actions[0].NStar = 5200e3 // unstable itself: no stiffness
-	rep = runAS(t, st, checks.DefaultOptions())
+	rep = runAS(t, st, stabilityOptions())
 	row := storeyRow(t, rep, checks.DirY)
 	lambda := 10000.0 / 13200 // source: standards-notes §1.3 form A without the unstable column's stiffness
 	if row.LambdaC.F() > lambda+1e-9 {
@@ -396,7 +396,7 @@ func TestUnstable(t *testing.T) {
 // TestStoreyNoCompression: no compression in the storey gives delta_s = 1.
 // source: design §5.3
 func TestStoreyNoCompression(t *testing.T) {
-	rep := runAS(t, storeyModel(-100, 0), checks.DefaultOptions())
+	rep := runAS(t, storeyModel(-100, 0), stabilityOptions())
 	row := storeyRow(t, rep, checks.DirY)
 	if !math.IsInf(row.LambdaC.F(), 1) || len(row.Reasons) != 1 || row.Reasons[0].Code != checks.CodeNotInCompression {
 		t.Errorf("row %+v", *row)
@@ -415,7 +415,7 @@ func TestMemberMethod(t *testing.T) {
 	lean.StoreyKey = "#10"
 	lean.Actions = []checks.Actions{act("ULS", 1200, 0, 0)}
 	m.Members = append(m.Members, lean)
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.SwayMethod = "member"
 	rep := runAS(t, m, opt)
 	if rep.SwayMethod != "member" || len(rep.Storeys) != 0 {
@@ -439,7 +439,7 @@ func TestGoverningCombination(t *testing.T) {
 	a.Actions = []checks.Actions{act("C1", 200, 10, 10), act("C2", 500, 10, 10), act("C3", 400, 10, 10)}
 	b := column("B", iFor(2000e3, 4000), iFor(8000e3, 4000))
 	b.Actions = []checks.Actions{act("C1", 200, 10, 10), act("C2", 1000, 10, 10), act("C3", 2500, 10, 10)}
-	rep := runAS(t, model(a, b), checks.DefaultOptions())
+	rep := runAS(t, model(a, b), stabilityOptions())
 	if g := rep.Elements[0].GoverningCombination; g != "C2" {
 		t.Errorf("A governing %q, want C2 (largest delta_m)", g)
 	}
@@ -467,7 +467,7 @@ func TestCombinationProblems(t *testing.T) {
 		{Code: checks.CodeSignConventionAmbiguous, Message: "axial force too small to decide", Combination: "C2"},
 		{Code: checks.CodeAxialSignSuspect, Message: "most columns in tension", Combination: "C3"},
 	}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	c := el.Combinations
 	near(t, "beta_m C1", c[0].Axes[0].BetaM, 0.5, 0) // source: AS 4100 4.4.2.2, 20/40 reverse curvature
@@ -486,7 +486,7 @@ func TestCombinationProblems(t *testing.T) {
 func TestNonFiniteActions(t *testing.T) {
 	m := column("N", iFor(8000e3, 4000), iFor(4000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", math.NaN(), 40, -20)}
-	rep := runAS(t, model(m), checks.DefaultOptions())
+	rep := runAS(t, model(m), stabilityOptions())
 	wantVerdict(t, &rep.Elements[0], checks.NeedsAnalysis)
 	wantReason(t, &rep.Elements[0], checks.CodeMissingActions, "")
 }

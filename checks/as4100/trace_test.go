@@ -34,7 +34,7 @@ func traceModel() *checks.Model {
 // none nothing; on demand rebuilds the same steps.
 // source: design §5.5 (trace levels)
 func TestTraceLevels(t *testing.T) {
-	full := runAS(t, traceModel(), checks.DefaultOptions())
+	full := runAS(t, traceModel(), stabilityOptions())
 	el := &full.Elements[1]
 	combs := map[string]bool{}
 	for _, s := range el.Trace {
@@ -76,7 +76,7 @@ func TestTraceLevels(t *testing.T) {
 		t.Error("no delta_b,major step for C2")
 	}
 
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Trace = "summary"
 	sum := runAS(t, traceModel(), opt)
 	sel := &sum.Elements[1]
@@ -233,7 +233,7 @@ func TestPropertyMonotoneInNStar(t *testing.T) {
 }
 
 func noTrace() checks.Options {
-	o := checks.DefaultOptions()
+	o := stabilityOptions()
 	o.Trace = "none"
 	return o
 }

@@ -72,7 +72,7 @@ func BenchmarkRunFull(b *testing.B) {
 	rs := en1993.New()
 	for _, scope := range []string{"stability", "full"} {
 		b.Run("scope="+scope, func(b *testing.B) {
-			opt := checks.DefaultOptions()
+			opt := stabilityOptions()
 			opt.Scope = scope
 			opt.Trace = "none"
 			b.ReportAllocs()
@@ -89,7 +89,7 @@ func BenchmarkRunFull(b *testing.B) {
 // pass with scope full, so the pass path is what is measured.
 // // common practice: benchmark inputs are realistic
 func TestBenchModelVerdicts(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	opt.Trace = "none"
 	rep, err := checks.Run(benchModel(2000, 10), en1993.New(), opt)

@@ -49,7 +49,7 @@ func capColumn(id string, p *section.Properties, fy, l float64) checks.Member {
 }
 
 func fullOptions() checks.Options {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	return opt
 }
@@ -283,7 +283,7 @@ func TestVerdicts(t *testing.T) {
 	}
 
 	// The same column under scope stability: no capacity, pass (design §5.4).
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	el = &rep.Elements[0]
 	wantVerdict(t, el, checks.Pass)
 	null(t, "governing utilisation", el.GoverningUtilisation)

@@ -66,7 +66,7 @@ func TestStoreyDriftTable(t *testing.T) {
 		m := model(a, b)
 		m.StoreyData = []checks.StoreyData{{StoreyKey: "L1", Direction: checks.DirY, Combination: "ULS",
 			ShearN: 50e3, DriftMM: tc.drift, HeightMM: 4000}}
-		rep := run(t, m, checks.DefaultOptions())
+		rep := run(t, m, stabilityOptions())
 		for i := range rep.Elements {
 			el := &rep.Elements[i]
 			ax := &el.Combinations[0].Axes[checks.Major]
@@ -121,7 +121,7 @@ func TestAlphaBoundaries(t *testing.T) {
 		{0.8, math.NaN(), checks.Fail, checks.CodeUnstable},                            // source: EN 1993-1-1 5.2.1(3)
 	}
 	for _, tc := range cases {
-		rep := run(t, model(swayAlone(tc.alpha)), checks.DefaultOptions())
+		rep := run(t, model(swayAlone(tc.alpha)), stabilityOptions())
 		el := &rep.Elements[0]
 		ax := &el.Combinations[0].Axes[checks.Major]
 		near(t, "alpha_cr", ax.LambdaC, tc.alpha, 1e-9*tc.alpha)
@@ -146,7 +146,7 @@ func TestAlphaBoundaries(t *testing.T) {
 func TestBracedAxis(t *testing.T) {
 	m := column("B", iFor(4000e3, 4000), iFor(6000e3, 4000))
 	m.Actions = []checks.Actions{act("ULS", 1000, 80, 80)}
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	ax := &el.Combinations[0].Axes[checks.Major]
 	near(t, "lambda_c = N_cr/N_Ed", ax.LambdaC, 4, 1e-9) // source: design §6 table (EN 1993 braced: N_cr/N_Ed), 4000/1000
@@ -167,7 +167,7 @@ func TestBracedAxis(t *testing.T) {
 
 	// Tension: no lambda_c, delta_m = 1.
 	m.Actions = []checks.Actions{act("ULS", -200, 80, 80)}
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	ax = &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	null(t, "lambda_c (tension)", ax.LambdaC)
 	near(t, "delta_m (tension)", ax.DeltaM, 1, 0)
@@ -176,7 +176,7 @@ func TestBracedAxis(t *testing.T) {
 
 	// N_Ed ≥ N_cr: the member buckles.
 	m.Actions = []checks.Actions{act("ULS", 4000, 80, 80)}
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	ax = &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	null(t, "delta_m (unstable)", ax.DeltaM)
 	wantReason(t, &rep.Elements[0], checks.CodeUnstable, "major")
@@ -191,7 +191,7 @@ func TestBracedModeOfSwayColumn(t *testing.T) {
 	b := swayColumn("B", "L1", 500e3) // braced mode 2000 kN
 	a.Actions = []checks.Actions{act("ULS", 500, 20, 40)}
 	b.Actions = []checks.Actions{act("ULS", 2500, 20, 40)}
-	rep := run(t, model(a, b), checks.DefaultOptions())
+	rep := run(t, model(a, b), stabilityOptions())
 	// source: design §5.3 (a column unstable itself adds load, no stiffness): alpha_cr = 10 000/(500 + 2500) [D]
 	near(t, "alpha_cr", rep.Elements[0].Combinations[0].Axes[0].LambdaC, 10.0/3, 1e-9)
 	near(t, "delta_s", rep.Elements[0].Combinations[0].Axes[0].DeltaS, 1/(1-0.3), 1e-9)
@@ -210,7 +210,7 @@ func TestLeaningFormA(t *testing.T) {
 	c1.Actions = []checks.Actions{act("ULS", 800, -40, 60)}
 	c2.Actions = []checks.Actions{act("ULS", 800, -40, 60)}
 	g.Actions = []checks.Actions{act("ULS", 1200, 0, 0)}
-	rep := run(t, model(c1, c2, g), checks.DefaultOptions())
+	rep := run(t, model(c1, c2, g), stabilityOptions())
 	st := &rep.Storeys[0]
 	// source: standards-notes §1.3 [D]: form A = 3.571, form B = 2.941 for N_oms 5000/5000/0 and N* 800/800/1200
 	near(t, "storey alpha_cr", st.LambdaC, 3.5714, 1e-4)
@@ -237,7 +237,7 @@ func TestSplitMoments(t *testing.T) {
 	m := swayAlone(5) // delta_s = 1.25
 	m.Actions[0].Moments[0] = checks.AxisMoments{Start: -20e6, End: 40e6,
 		Split: &checks.SplitMoments{NtStart: 40e6, NtEnd: -20e6, LtStart: -60e6, LtEnd: 60e6}}
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	ax := &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	// source: EN 1993-1-1 5.2.2(5)B (sway effects amplified): max(|40 - 1.25·60|, |-20 + 1.25·60|) = 55 kNm [D]
 	near(t, "M_Ed,amp (split)", ax.MAmp, 55e6, 1e-3)
@@ -245,7 +245,7 @@ func TestSplitMoments(t *testing.T) {
 	noReason(t, &rep.Elements[0], checks.CodeTotalMomentAmplified)
 
 	m.Actions[0].Moments[0].Split = nil
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	ax = &rep.Elements[0].Combinations[0].Axes[checks.Major]
 	// source: design §5.3 (total moment amplified without a split): 1.25 · 40 = 50 kNm [D], below the split 55
 	near(t, "M_Ed,amp (total)", ax.MAmp, 50e6, 1e-3)
@@ -259,7 +259,7 @@ func TestSplitMoments(t *testing.T) {
 func TestSecondOrderActions(t *testing.T) {
 	m := swayAlone(2)
 	m.Actions[0].Theory = checks.SecondOrder
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	// source: EN 1993-1-1 5.2.2 (second-order analysis includes the sway effects), design §5.3
 	near(t, "delta_s", el.Combinations[0].Axes[0].DeltaS, 1, 0)
@@ -269,14 +269,14 @@ func TestSecondOrderActions(t *testing.T) {
 
 	m = swayAlone(0.9)
 	m.Actions[0].Theory = checks.SecondOrder
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	wantVerdict(t, &rep.Elements[0], checks.Fail) // source: EN 1993-1-1 5.2.1(3): alpha_cr < 1, F_Ed above F_cr
 }
 
 // TestOptions: assumptions, scope full, the member method and the default
 // modulus.
 func TestOptions(t *testing.T) {
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	rep := run(t, model(swayAlone(5)), opt)
 	for _, want := range []string{"EN 1993-1-1 5.3.2", "form A", "EN 1993-1-1 5.2.1(4)B", "5.2.2(6)B"} {
 		if !contains(rep.Assumptions, want) {
@@ -299,7 +299,7 @@ func TestOptions(t *testing.T) {
 	b := swayColumn("B", "L1", 2000e3)
 	a.Actions = []checks.Actions{act("ULS", 1000, 10, 20)}
 	b.Actions = []checks.Actions{act("ULS", 1000, 10, 20)}
-	opt = checks.DefaultOptions()
+	opt = stabilityOptions()
 	opt.SwayMethod = "member"
 	rep = run(t, model(a, b), opt)
 	// source: design §5.3 (member method: the member's own N_cr/N_Ed), 6000/1000 and 2000/1000 [D]
@@ -314,7 +314,7 @@ func TestOptions(t *testing.T) {
 	m := column("E", iFor(4000e3, 4000), iFor(4000e3, 4000))
 	m.Material = checks.Material{}
 	m.Actions = []checks.Actions{act("ULS", 1000, 10, 10)}
-	rep = run(t, model(m), checks.DefaultOptions())
+	rep = run(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	if el.E != 210_000 || el.ESource != "default" { // source: standards-notes §3, EN 1993-1-1 3.2.6
 		t.Errorf("E = %v (%s)", el.E, el.ESource)
@@ -330,7 +330,7 @@ func TestStoreyNoCompression(t *testing.T) {
 	b := swayColumn("B", "L1", 5000e3)
 	a.Actions = []checks.Actions{act("ULS", -100, 10, 20)}
 	b.Actions = []checks.Actions{act("ULS", -100, 10, 20)}
-	rep := run(t, model(a, b), checks.DefaultOptions())
+	rep := run(t, model(a, b), stabilityOptions())
 	ax := &rep.Elements[0].Combinations[0].Axes[0]
 	if !math.IsInf(ax.LambdaC.F(), 1) {
 		t.Errorf("alpha_cr = %v, want +Inf", ax.LambdaC.F())
@@ -343,7 +343,7 @@ func TestStoreyNoCompression(t *testing.T) {
 // summary trace is the full trace's governing part.
 func TestTrace(t *testing.T) {
 	m := swayAlone(5)
-	rep := run(t, model(m), checks.DefaultOptions())
+	rep := run(t, model(m), stabilityOptions())
 	el := &rep.Elements[0]
 	want := map[string]string{
 		"N_cr,major":     "EN 1993-1-1 6.3.1.2",
@@ -365,7 +365,7 @@ func TestTrace(t *testing.T) {
 	if s := step(el, "delta_s,major"); s == nil || math.Abs(s.Value-1.25) > 1e-9 {
 		t.Errorf("delta_s step %+v", s)
 	}
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.TraceOnDemand = true
 	rep2 := run(t, model(m), opt)
 	got := rep2.AppendTrace(nil, 0)

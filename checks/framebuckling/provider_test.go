@@ -65,7 +65,7 @@ func TestProviderPortal(t *testing.T) {
 		t.Fatal(an.Err)
 	}
 	want := 7.3792 * 200e3 * in.Model.Members[0].Iy / (3000 * 3000) / p // source: standards-notes §5 [D]
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.SwayMethod = "frame"
 	rep, err := checks.RunWith(m, as4100.New(), an.Provider(), opt)
 	if err != nil {
@@ -111,7 +111,7 @@ func TestProviderPortal(t *testing.T) {
 func TestProviderNoFrame(t *testing.T) {
 	m, _ := portal(t, 1000e3)
 	an := Unavailable(m, "the model has no analytical frame")
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.SwayMethod = "frame"
 	rep, err := checks.RunWith(m, as4100.New(), an.Provider(), opt)
 	if err != nil {

@@ -36,7 +36,7 @@ func swayColumn(id, storey string, lambda float64) checks.Member {
 
 func run(t *testing.T, provisions string, ms ...checks.Member) *checks.Report {
 	t.Helper()
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.NZSProvisions = provisions
 	rep, err := checks.Run(&checks.Model{Members: ms, Combinations: []string{"ULS"}}, nzs3404.New(), opt)
 	if err != nil {
@@ -98,7 +98,7 @@ func TestLeaningBelowFive(t *testing.T) {
 	lean.Actions[0].Moments[0] = checks.AxisMoments{}
 	m := &checks.Model{Members: []checks.Member{a, b, lean}, Combinations: []string{"ULS"}}
 	// source: standards-notes §1.3 form A/B with equal Noms/N*: lambda = 4.5 (leaning N* ≈ 0)
-	asRep, err := checks.Run(m, as4100.New(), checks.DefaultOptions())
+	asRep, err := checks.Run(m, as4100.New(), stabilityOptions())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -189,13 +189,13 @@ func TestTableInTrace(t *testing.T) {
 // TestOptions: unknown provisions are a usage error; scope full is accepted.
 func TestOptions(t *testing.T) {
 	m := &checks.Model{Members: []checks.Member{swayColumn("S", "", 6)}, Combinations: []string{"ULS"}}
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.NZSProvisions = "loose"
 	if _, err := checks.Run(m, nzs3404.New(), opt); !errors.Is(err, nzs3404.ErrProvisions) {
 		t.Errorf("err %v", err)
 	}
 	// Scope full is accepted: the capacity checks are AS 4100's.
-	opt = checks.DefaultOptions()
+	opt = stabilityOptions()
 	opt.Scope = "full"
 	if _, err := checks.Run(m, nzs3404.New(), opt); err != nil {
 		t.Errorf("err %v", err)
@@ -216,7 +216,7 @@ func TestCapacityFull(t *testing.T) {
 		Actions: []checks.Actions{{Combination: "ULS", NStar: 900e3,
 			Moments: [2]checks.AxisMoments{{Start: 120e6, End: -60e6}, {Start: 10e6, End: 10e6}}}}}
 	mod := &checks.Model{Members: []checks.Member{m}, Combinations: []string{"ULS"}}
-	opt := checks.DefaultOptions()
+	opt := stabilityOptions()
 	opt.Scope = "full"
 	nz, err := checks.Run(mod, nzs3404.New(), opt)
 	if err != nil {

@@ -66,7 +66,7 @@ func BenchmarkStandards(b *testing.B) {
 			if err != nil {
 				b.Fatal(err)
 			}
-			opt := checks.DefaultOptions()
+			opt := stabilityOptions()
 			opt.Trace = "none"
 			b.ReportAllocs()
 			for b.Loop() {
@@ -85,7 +85,7 @@ func TestBenchModelPasses(t *testing.T) {
 	m := benchModel(2000, 10)
 	for _, name := range standards.Names() {
 		rs, _ := standards.Lookup(name)
-		opt := checks.DefaultOptions()
+		opt := stabilityOptions()
 		opt.Trace = "none"
 		rep, err := checks.Run(m, rs, opt)
 		if err != nil {

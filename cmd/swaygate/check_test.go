@@ -259,7 +259,7 @@ func TestCheckExitStatus(t *testing.T) {
 // TestCheckRestraintDefaults: a user default fills the missing restraint of
 // B1 (mezzanine) and is recorded.
 func TestCheckRestraintDefaults(t *testing.T) {
-	out, _, _ := runCheckCmd(t, demoModel, "--format", "json", "--default-restraint", "braced:1.0")
+	out, _, _ := runCheckCmd(t, demoModel, "--format", "json", "--scope", "stability", "--default-restraint", "braced:1.0")
 	if !strings.Contains(out, `"assumed-restraint"`) {
 		t.Error("no assumed-restraint reason in the report")
 	}

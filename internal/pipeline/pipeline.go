@@ -185,10 +185,7 @@ func readModel(path, name string, opt ifcstep.Options) (*ifcstep.File, error) {
 // as *OptionError, or wrap checks.ErrOption; ctx cancels a long run between
 // its stages.
 func Check(ctx context.Context, req Request) (*Result, error) {
-	opt := req.Options
-	if opt.Standard == "" {
-		opt.Standard = standards.Default
-	}
+	opt := withDefaults(req.Options)
 	rs, err := standards.Lookup(opt.Standard)
 	if err != nil {
 		return nil, &OptionError{Msg: err.Error()}
@@ -274,3 +271,23 @@ func fileSHA256(path string) (string, error) {
 // ErrNotImplemented was returned before the extraction was wired in; Check
 // no longer returns it. Kept so that callers that still test for it build.
 var ErrNotImplemented = errors.New("pipeline: not implemented")
+
+// withDefaults fills the option fields a caller left empty from
+// checks.DefaultOptions, so that a zero Options checks as the command line
+// does by default.
+func withDefaults(opt checks.Options) checks.Options {
+	def := checks.DefaultOptions()
+	for _, f := range []struct {
+		v *string
+		d string
+	}{
+		{&opt.Standard, def.Standard}, {&opt.SwayMethod, def.SwayMethod}, {&opt.Scope, def.Scope},
+		{&opt.Trace, def.Trace}, {&opt.NZSProvisions, def.NZSProvisions}, {&opt.AISCMethod, def.AISCMethod},
+		{&opt.KeFrom, def.KeFrom},
+	} {
+		if *f.v == "" {
+			*f.v = f.d
+		}
+	}
+	return opt
+}
