@@ -219,6 +219,7 @@ func TestModelPassThrough(t *testing.T) {
 		t.Errorf("header %q %q %q", rep.Standard, rep.SwayMethod, rep.Scope)
 	}
 }
+
 // stabilityOptions are the default options with scope stability: the tests of
 // the amplification provisions alone. (The product default is scope full,
 // which adds the member capacity checks; their tests set it explicitly.)

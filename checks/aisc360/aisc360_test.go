@@ -429,6 +429,7 @@ func TestCurvatureUnknown(t *testing.T) {
 	near(t, "C_m", ax.Cm, 1, 0)            // source: AISC 360 A-8-4 (standards-notes §4 [C]): single curvature, uniform moment
 	near(t, "B1", ax.DeltaB, 1/0.75, 1e-9) // source: AISC 360 A-8-3: 1/(1 - 0.25)
 }
+
 // stabilityOptions are the default options with scope stability: the tests of
 // the amplification provisions alone. (The product default is scope full,
 // which adds the member capacity checks; their tests set it explicitly.)

@@ -131,6 +131,7 @@ func TestProviderNoFrame(t *testing.T) {
 		}
 	}
 }
+
 // stabilityOptions are the default options with scope stability: the tests of
 // the amplification provisions alone. (The product default is scope full,
 // which adds the member capacity checks; their tests set it explicitly.)
