@@ -367,6 +367,11 @@ func TestIFC2X3Fixture(t *testing.T) {
 	if k6 := byName(t, m, "K6"); k6.Length != 3600 {
 		t.Errorf("K6 length %g", k6.Length)
 	}
+	// K7 has no geometry: its own IfcStructuralProfileProperties give the section.
+	if k7 := byName(t, m, "K7"); k7.Section == nil || k7.Section.Source != "model" || k7.Section.A != 5873 ||
+		k7.Section.IMajor != 4.568e7 || k7.Section.J != 2.22e5 || k7.Length != 3500 || hasCode(k7, checks.CodeMissingSection) {
+		t.Errorf("K7: section %+v length %g problems %s", k7.Section, k7.Length, codes(k7))
+	}
 	if strings.Join(m.Combinations, "|") != "ULS 1" || !strings.Contains(warningCodes(m), "combinations-without-results") {
 		t.Errorf("combinations %q warnings %s", m.Combinations, warningCodes(m))
 	}

@@ -250,7 +250,7 @@ func (x *extractor) predefinedType(c *candidate) string {
 	if c.typeObj.ID() != 0 && x.s.typePredef >= 0 {
 		if e, ok := c.typeObj.Attr(x.s.typePredef).Enum(); ok && e != "NOTDEFINED" {
 			if e == "USERDEFINED" {
-				if t := strings.ToUpper(text(c.typeObj.Attr(9 - 1))); t != "" {
+				if t := strings.ToUpper(text(c.typeObj.Attr(x.s.typeElementType))); t != "" {
 					return t
 				}
 			}
@@ -319,20 +319,19 @@ func (x *extractor) buildIndex(cs []candidate) {
 	for i := range cs {
 		pos[cs[i].inst.ID()] = i
 	}
-	if len(x.opt.MemberTypes) == 0 || true {
-		// Types of every candidate (members were typed already).
-		var untyped []candidate
-		var back []int
-		for i := range cs {
-			if cs[i].typeObj.ID() == 0 && !cs[i].analysisOnly {
-				untyped = append(untyped, cs[i])
-				back = append(back, i)
-			}
+	// The types of the candidates not typed yet (IfcMember candidates were
+	// typed to read their predefined type).
+	var untyped []candidate
+	var back []int
+	for i := range cs {
+		if cs[i].typeObj.ID() == 0 && !cs[i].analysisOnly {
+			untyped = append(untyped, cs[i])
+			back = append(back, i)
 		}
-		x.indexTypes(untyped)
-		for k, i := range back {
-			cs[i].typeObj = untyped[k].typeObj
-		}
+	}
+	x.indexTypes(untyped)
+	for k, i := range back {
+		cs[i].typeObj = untyped[k].typeObj
 	}
 	types := map[uint32]bool{}
 	var related idSet // candidates and their types

@@ -265,7 +265,23 @@ func (x *extractor) physicalGeometry(c *candidate, m *checks.Member, aux *member
 	var pi *profileInfo
 	if prof.ID() != 0 {
 		pi = x.profile(prof)
+		if c.profProps != 0 && x.idx.profileProps[prof.ID()] == 0 {
+			pi = x.elementProfileProps(pi, c.profProps)
+		}
 		x.setSection(m, pi)
+	} else if c.profProps != 0 {
+		// No usable profile, but the element's own profile properties.
+		if p := x.elementProfileProps(nil, c.profProps); p.props != nil {
+			kept := m.Problems[:0]
+			for _, r := range m.Problems {
+				if r.Code != checks.CodeMissingSection {
+					kept = append(kept, r)
+				}
+			}
+			m.Problems = kept
+			pi = p
+			x.setSection(m, pi)
+		}
 	}
 
 	// Orientation of the principal axes.

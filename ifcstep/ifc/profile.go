@@ -311,7 +311,36 @@ func (x *extractor) applyProfileProperties(in ifcstep.Instance, p *profileInfo) 
 	if !ok {
 		return
 	}
-	mv := x.readProfileProps(pp)
+	x.mergeProfileProps(p, x.readProfileProps(pp))
+}
+
+// elementProfileProps applies IFC2X3 profile properties associated with the
+// element itself (IfcRelAssociatesProfileProperties) to a copy of p (p may
+// be nil: no profile at all).
+func (x *extractor) elementProfileProps(p *profileInfo, id uint32) *profileInfo {
+	pp, ok := x.f.Get(id)
+	if !ok {
+		return p
+	}
+	var cp profileInfo
+	if p != nil {
+		cp = *p
+		if p.props != nil {
+			pc := *p.props
+			cp.props = &pc
+		}
+	} else {
+		cp.id = id
+		cp.name = text(pp.Attr(0)) // ProfileName
+	}
+	x.mergeProfileProps(&cp, x.readProfileProps(pp))
+	return &cp
+}
+
+// mergeProfileProps applies model-given section values to p: the whole
+// section when the dimensions give none, else the missing J and Iw, noting
+// differences over 2 %.
+func (x *extractor) mergeProfileProps(p *profileInfo, mv modelSection) {
 	if !(mv.a > 0) && !(mv.iy > 0) {
 		return
 	}
@@ -412,23 +441,22 @@ func (x *extractor) readProfileProps(pp ifcstep.Instance) modelSection {
 		m.zy = get("MinimumSectionModulusY", qSecMod)
 		m.zz = get("MinimumSectionModulusZ", qSecMod)
 	case "IFCSTRUCTURALPROFILEPROPERTIES", "IFCSTRUCTURALSTEELPROFILEPROPERTIES", "IFCGENERALPROFILEPROPERTIES":
-		get := func(i int, q quantity) float64 {
-			v, ok := x.measure(pp.Attr(i), q, pp, ifcstep.Value{})
+		t := pp.Type()
+		get := func(attr string, q quantity) float64 {
+			v, ok := x.measure(pp.Attr(x.s.pos(t, attr)), q, pp, ifcstep.Value{})
 			if !ok {
 				return 0
 			}
 			return v
 		}
-		m.a = get(6, qArea)
-		if pp.Type() != "IFCGENERALPROFILEPROPERTIES" {
-			m.j = get(7, qInertia)
-			m.iyz = get(8, qInertia)
-			m.iy = get(9, qInertia)
-			m.iz = get(10, qInertia)
-			m.iw = get(11, qWarping)
-			m.zy = get(17, qSecMod)
-			m.zz = get(19, qSecMod)
-		}
+		m.a = get("CrossSectionArea", qArea)
+		m.j = get("TorsionalConstantX", qInertia)
+		m.iyz = get("MomentOfInertiaYZ", qInertia)
+		m.iy = get("MomentOfInertiaY", qInertia)
+		m.iz = get("MomentOfInertiaZ", qInertia)
+		m.iw = get("WarpingConstant", qWarping)
+		m.zy = get("MinimumSectionModulusY", qSecMod)
+		m.zz = get("MinimumSectionModulusZ", qSecMod)
 	}
 	return m
 }

@@ -195,7 +195,7 @@ type schema struct {
 	// IfcRoot and IfcProduct (the same in every family).
 	globalID, name, description, placement, representation, tag int
 	elemPredef                                                  int // IfcColumn/IfcMember.PredefinedType
-	typePsets, typeMaps, typePredef                             int // IfcColumnType...
+	typePsets, typeMaps, typePredef, typeElementType            int // IfcColumnType...
 	gridRelTo, gridLoc, gridRef                                 int // IfcGridPlacement
 	cpl2DCoords                                                 int // IfcCartesianPointList2D.CoordList
 
@@ -238,6 +238,7 @@ func buildSchema(f ifcstep.Family) *schema {
 	s.typePsets = pos("IFCCOLUMNTYPE", "HasPropertySets")
 	s.typeMaps = pos("IFCCOLUMNTYPE", "RepresentationMaps")
 	s.typePredef = pos("IFCCOLUMNTYPE", "PredefinedType")
+	s.typeElementType = pos("IFCCOLUMNTYPE", "ElementType")
 	s.gridRelTo = pos("IFCGRIDPLACEMENT", "PlacementRelTo")
 	s.gridLoc = pos("IFCGRIDPLACEMENT", "PlacementLocation")
 	s.gridRef = pos("IFCGRIDPLACEMENT", "PlacementRefDirection")

@@ -123,13 +123,11 @@ type units struct {
 	toInt    [nQuantities]float64
 	notes    []string // assumptions about the units, in order found
 	noted    [nQuantities]bool
-	warn     func(code, msg, ref string)
 }
 
 // readUnits reads the unit assignment of the (first) IfcProject.
 func (x *extractor) readUnits() {
 	u := &x.units
-	u.warn = x.warn
 	var assign ifcstep.Instance
 	projects := x.f.ByType("IFCPROJECT")
 	if len(projects) > 1 {
