@@ -46,12 +46,13 @@ type checkParams struct {
 	include       []string
 	loadCases     bool
 	convention    string
+	keFrom        string
 }
 
 // checkParamNames are the accepted query parameters; any other is a 400, so
 // that a misspelt option is not silently ignored.
 var checkParamNames = []string{"standard", "sway_method", "scope", "trace", "gate", "project", "units", "name",
-	"nzs_provisions", "aisc_method", "include", "load_cases", "sign_convention"}
+	"nzs_provisions", "aisc_method", "include", "load_cases", "sign_convention", "ke_from"}
 
 // parseCheckParams reads and checks the query before any upload is read.
 // The engine checks the options again (checks.ErrOption).
@@ -78,6 +79,7 @@ func parseCheckParams(q url.Values) (checkParams, error) {
 		nzsProvisions: q.Get("nzs_provisions"),
 		aiscMethod:    q.Get("aisc_method"),
 		convention:    q.Get("sign_convention"),
+		keFrom:        q.Get("ke_from"),
 	}
 	for _, t := range strings.Split(q.Get("include"), ",") {
 		if t = strings.ToUpper(strings.TrimSpace(t)); t != "" {
@@ -98,6 +100,9 @@ func parseCheckParams(q url.Values) (checkParams, error) {
 		return p, err
 	}
 	if err := oneOf("sign_convention", p.convention, "auto", "section-forces", "end-forces"); err != nil {
+		return p, err
+	}
+	if err := oneOf("ke_from", p.keFrom, "auto", "property-set", "restraint-ratios", "buckling"); err != nil {
 		return p, err
 	}
 	if p.standard != "" {
@@ -219,6 +224,9 @@ func (s *Server) createCheck(c *gin.Context) (reply, error) {
 	}
 	if p.aiscMethod != "" {
 		opts.AISCMethod = p.aiscMethod
+	}
+	if p.keFrom != "" {
+		opts.KeFrom = p.keFrom
 	}
 	req := pipeline.Request{
 		ModelPath:   up.modelPath,

@@ -766,16 +766,16 @@ func TestNewOptions(t *testing.T) {
 // POST /v1/checks are passed to the check; bad values are 400.
 func TestPostOptionsReachThePipeline(t *testing.T) {
 	env := newTestEnv(t, nil)
-	rec := env.post("standard=aisc360&aisc_method=asd&nzs_provisions=quoted&include=post,Strut&load_cases=true&sign_convention=end-forces", fakeModel)
+	rec := env.post("standard=aisc360&aisc_method=asd&nzs_provisions=quoted&include=post,Strut&load_cases=true&sign_convention=end-forces&ke_from=buckling", fakeModel)
 	if rec.Code != 201 {
 		t.Fatalf("status %d: %s", rec.Code, rec.Body.String())
 	}
 	req := env.fake.lastRequest()
 	if req.Options.AISCMethod != "asd" || req.Options.NZSProvisions != "quoted" || !req.LoadCases ||
-		req.Convention != "end-forces" || strings.Join(req.Include, ",") != "POST,STRUT" {
+		req.Convention != "end-forces" || req.Options.KeFrom != "buckling" || strings.Join(req.Include, ",") != "POST,STRUT" {
 		t.Errorf("request %+v", req)
 	}
-	for _, q := range []string{"load_cases=yes", "aisc_method=lsd", "sign_convention=both", "nzs_provisions=new"} {
+	for _, q := range []string{"load_cases=yes", "aisc_method=lsd", "sign_convention=both", "nzs_provisions=new", "ke_from=guess"} {
 		if rec := env.post(q, fakeModel); rec.Code != 400 {
 			t.Errorf("%s: status %d, want 400", q, rec.Code)
 		}
