@@ -352,9 +352,13 @@ func (x *extractor) deref(from ifcstep.Instance, v ifcstep.Value) (ifcstep.Insta
 }
 
 // ref renders an instance reference "#12".
-func ref(in ifcstep.Instance) string { return "#" + strconv.FormatUint(uint64(in.ID()), 10) }
+func ref(in ifcstep.Instance) string { return refID(in.ID()) }
 
-func refID(id uint32) string { return "#" + strconv.FormatUint(uint64(id), 10) }
+func refID(id uint32) string {
+	var b [12]byte
+	b[0] = '#'
+	return string(strconv.AppendUint(b[:1], uint64(id), 10))
+}
 
 func itoa(n int) string { return strconv.Itoa(n) }
 

@@ -23,6 +23,7 @@ type psets struct {
 
 func (x *extractor) memberPsets(c *candidate) psets {
 	var p psets
+	p.occ = make([]ifcstep.Instance, 0, len(c.psets))
 	for _, id := range c.psets {
 		if in, ok := x.f.Get(id); ok {
 			p.occ = append(p.occ, in)
@@ -46,11 +47,11 @@ func (x *extractor) memberPsets(c *candidate) psets {
 }
 
 // named returns the properties of the sets called name, occurrence first
-// (each property name taken from the first set that has it), and the
-// reference of the set that gave them.
-func (x *extractor) named(sets []ifcstep.Instance, name string) (propList, string) {
+// (each property name taken from the first set that has it), and the first
+// such set (zero when there is none).
+func (x *extractor) named(sets []ifcstep.Instance, name string) (propList, ifcstep.Instance) {
 	var out propList
-	at0 := ""
+	var at0 ifcstep.Instance
 	n := 0
 	for _, s := range sets {
 		if s.Type() != "IFCPROPERTYSET" {
@@ -64,7 +65,7 @@ func (x *extractor) named(sets []ifcstep.Instance, name string) (propList, strin
 		props := x.propertiesOf(s, at(vs, pPsetProps))
 		n++
 		if n == 1 {
-			out, at0 = props, ref(s)
+			out, at0 = props, s
 			continue
 		}
 		for _, p := range props {
@@ -89,12 +90,12 @@ func (x *extractor) restraint(m *checks.Member, ps psets) {
 	if len(ps.typ) > 0 {
 		sets = append(append([]ifcstep.Instance{}, ps.occ...), ps.typ...)
 	}
-	props, at := x.named(sets, psetColumnDesign)
-	if at == "" {
+	props, set := x.named(sets, psetColumnDesign)
+	if set.ID() == 0 {
 		return // the engine reports missing-restraint per axis
 	}
 	problem := func(code, msg, axis string) {
-		m.Problems = append(m.Problems, checks.Reason{Code: code, Message: msg, Axis: axis, Ref: at})
+		m.Problems = append(m.Problems, checks.Reason{Code: code, Message: msg, Axis: axis, Ref: ref(set)})
 	}
 	var ends [2]effective.End
 	var endGiven [2]bool
