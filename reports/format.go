@@ -184,3 +184,11 @@ func writeReasonsText(b *strings.Builder, title string, rs []checks.Reason) {
 		b.WriteString("\n")
 	}
 }
+
+// fmtUtil writes a governing utilisation with 3 decimals, "-" when unknown.
+func fmtUtil(u checks.Num) string {
+	if !u.Known() {
+		return "-"
+	}
+	return fmtFixed(u.F(), 3)
+}

@@ -43,6 +43,8 @@ type htmlPage struct {
 	GatePassed bool
 	// Display unit labels.
 	Force, Moment, Length string
+	// Full: scope full, so members show their governing utilisation.
+	Full bool
 
 	Assumptions []string
 	Warnings    []string
@@ -71,7 +73,7 @@ type htmlGroup struct {
 
 type htmlMember struct {
 	Anchor, GlobalID, Name, Tag, Verdict, Governing string
-	DeltaM, NStar, MAmp                             string
+	DeltaM, NStar, MAmp, Util                       string
 	Reasons                                         []string
 }
 
@@ -95,6 +97,7 @@ func newHTMLPage(r *checks.Report, run *Run, u *unitSystem) *htmlPage {
 		GatePassed:  run.Gate.Passed,
 		Force:       u.force,
 		Moment:      u.moment,
+		Full:        r.Scope == "full",
 		Length:      u.length,
 		Assumptions: r.Assumptions,
 		Skipped:     r.Skipped,
@@ -165,7 +168,7 @@ func newHTMLPage(r *checks.Report, run *Run, u *unitSystem) *htmlPage {
 		hm := htmlMember{
 			Anchor: anchor, GlobalID: m.GlobalID, Name: m.Name, Tag: m.Tag,
 			Verdict: e.Verdict.String(), Governing: orDash(e.GoverningCombination),
-			DeltaM: "-", NStar: "-", MAmp: "-", Reasons: reasons,
+			DeltaM: "-", NStar: "-", MAmp: "-", Util: fmtUtil(e.GoverningUtilisation), Reasons: reasons,
 		}
 		if g := governing(e); g != nil {
 			hm.DeltaM = fmtFixed(maxKnown(g, deltaM), 3)

@@ -31,7 +31,12 @@ func WriteText(w io.Writer, r *checks.Report, run Run) error {
 	}
 
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	tw.Write([]byte("GLOBALID\tNAME\tSTOREY\tVERDICT\tGOVERNING\tDELTA_M\tN* (" + u.force + ")\tM* AMP (" + u.moment + ")\tREASON\n"))
+	full := r.Scope == "full"
+	head := "GLOBALID\tNAME\tSTOREY\tVERDICT\tGOVERNING\tDELTA_M\tN* (" + u.force + ")\tM* AMP (" + u.moment + ")\t"
+	if full {
+		head += "UTIL\t"
+	}
+	tw.Write([]byte(head + "REASON\n"))
 	var line []byte
 	for i := range r.Elements {
 		e := &r.Elements[i]
@@ -48,6 +53,9 @@ func WriteText(w io.Writer, r *checks.Report, run Run) error {
 			line = appendCell(line, fmtFixed(maxKnown(g, mAmp)/u.perMoment, 1))
 		} else {
 			line = append(line, "-\t-\t-\t"...)
+		}
+		if full {
+			line = appendCell(line, fmtUtil(e.GoverningUtilisation))
 		}
 		if mr := mainReason(e); mr != nil {
 			line = append(line, truncateRunes(reasonText(mr), maxReasonText)...)
