@@ -1,7 +1,9 @@
 package main
 
 import (
+	"archive/zip"
 	"bytes"
+	"compress/gzip"
 	"encoding/json"
 	"errors"
 	"math"
@@ -339,5 +341,36 @@ func TestCheckStoreyFile(t *testing.T) {
 	}
 	if !found {
 		t.Error("no Ground Floor X ULS-2 storey row")
+	}
+}
+
+// TestCheckCompressedModels: a gzip file and an .ifczip archive of the demo
+// model give the same report as the plain file.
+func TestCheckCompressedModels(t *testing.T) {
+	dir := t.TempDir()
+	body, err := os.ReadFile(demoModel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	gz := filepath.Join(dir, "depot.ifc.gz")
+	var gb bytes.Buffer
+	zw := gzip.NewWriter(&gb)
+	zw.Write(body)
+	zw.Close()
+	if err := os.WriteFile(gz, gb.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	zipPath := filepath.Join(dir, "depot.ifczip")
+	var zb bytes.Buffer
+	arc := zip.NewWriter(&zb)
+	f, _ := arc.Create("tern-street-depot.ifc")
+	f.Write(body)
+	arc.Close()
+	if err := os.WriteFile(zipPath, zb.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	plain := checkJSON(t, demoModel)
+	for _, p := range []string{gz, zipPath} {
+		sameResults(t, filepath.Base(p), plain, checkJSON(t, p), 0)
 	}
 }
