@@ -1,61 +1,17 @@
 package checks_test
 
 import (
-	"math/rand/v2"
-	"strconv"
+	"swaygate/checks/internal/checktest"
 	"testing"
 
 	"swaygate/checks"
 	"swaygate/checks/as4100"
-	"swaygate/checks/section"
 )
 
-// benchModel is an invented building of n columns in storeys of 1000, half
-// of them sway columns about the major axis (global Y), the rest leaning;
-// every minor axis braced; nc combinations of first-order actions with
-// moments about both axes. Seeded: the same model every run.
-func benchModel(n, nc int) *checks.Model {
-	rng := rand.New(rand.NewPCG(1, 1))
-	m := &checks.Model{Members: make([]checks.Member, n)}
-	for c := range nc {
-		m.Combinations = append(m.Combinations, "ULS-"+strconv.Itoa(c+1))
-	}
-	// A 310UC96.8-like section (invented demo data, not a check value).
-	sec := &section.Properties{Profile: "310UC96.8", Shape: "I", A: 12_400, IMajor: 223e6, IMinor: 72.9e6}
-	for i := range m.Members {
-		mem := &m.Members[i]
-		storey := i / 1000
-		*mem = checks.Member{
-			GlobalID:        "G" + strconv.Itoa(i),
-			Entity:          "IfcColumn",
-			StoreyKey:       "#" + strconv.Itoa(storey),
-			Storey:          "Level " + strconv.Itoa(storey),
-			StoreyElevation: checks.Num(4000 * storey),
-			Length:          4000,
-			Section:         sec,
-			Material:        checks.Material{E: 200_000, Source: "model"},
-			Axes: [2]checks.AxisInput{
-				{Restraint: checks.Braced, Ke: 1, Direction: checks.DirY},
-				{Restraint: checks.Braced, Ke: 0.85, Direction: checks.DirX},
-			},
-			Actions: make([]checks.Actions, nc),
-		}
-		if i%2 == 0 {
-			mem.Axes[0] = checks.AxisInput{Restraint: checks.Sway, Ke: 1.3, Direction: checks.DirY}
-		}
-		for c := range nc {
-			n := 300e3 + rng.Float64()*900e3
-			a := checks.Actions{Combination: m.Combinations[c], NStar: n}
-			a.Moments[0] = checks.AxisMoments{Start: (rng.Float64() - 0.5) * 160e6, End: (rng.Float64() - 0.5) * 160e6}
-			a.Moments[1] = checks.AxisMoments{Start: (rng.Float64() - 0.5) * 20e6, End: (rng.Float64() - 0.5) * 20e6}
-			if i%2 == 1 {
-				a.Moments[0] = checks.AxisMoments{} // leaning: no major-axis moment
-			}
-			mem.Actions[c] = a
-		}
-	}
-	return m
-}
+// benchModel is the shared invented benchmark building
+// (checks/internal/checktest.BenchModel): 310UC96.8 columns in storeys of
+// 1000, half sway about the major axis, seeded actions.
+var benchModel = checktest.BenchModel
 
 // BenchmarkRun: 100,000 members × 10 combinations, both axes, storey
 // method. Target (design §8): < 1 s per op on one core
