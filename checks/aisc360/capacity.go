@@ -151,7 +151,7 @@ type scratch struct {
 	keyOK bool
 	sec   secCap
 	mem   memCap
-	arena []checks.CapacityCheck
+	arena checks.CheckArena
 }
 
 func scratchOf(mc *checks.MemberContext) *scratch {
@@ -163,27 +163,8 @@ func scratchOf(mc *checks.MemberContext) *scratch {
 	return sc
 }
 
-const (
-	maxChecks  = 4
-	arenaChunk = 4096
-)
-
-func (sc *scratch) reserve(n int) []checks.CapacityCheck {
-	if cap(sc.arena)-len(sc.arena) < n {
-		sc.arena = make([]checks.CapacityCheck, 0, max(arenaChunk, n))
-	}
-	l := len(sc.arena)
-	return sc.arena[l : l+n : l+n]
-}
-
-func (sc *scratch) commit(n int) []checks.CapacityCheck {
-	if n == 0 {
-		return nil
-	}
-	l := len(sc.arena)
-	sc.arena = sc.arena[:l+n]
-	return sc.arena[l : l+n : l+n]
-}
+// maxChecks is the most checks one combination adds.
+const maxChecks = 4
 
 func pick(a int, x, y string) string {
 	if a == 0 {
@@ -796,7 +777,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 	}
 	method := mc.Options.AISCMethod
 	on := tr.On()
-	k := combo{cx: cx, tr: tr, buf: sc.reserve(maxChecks)}
+	k := combo{cx: cx, tr: tr, buf: sc.arena.Reserve(maxChecks)}
 	pr := cx.Actions.NStar
 	var mr, mcap [2]float64
 	for a := range mr {
@@ -865,7 +846,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 	name, clause := CheckCompression, clausePn
 	if pr >= 0 {
 		if math.IsNaN(m.pnMin) {
-			out.Capacity = sc.commit(k.n)
+			out.Capacity = sc.arena.Commit(k.n)
 			return
 		}
 		pc = available(method, m.pnMin, PhiC, OmegaC)
@@ -884,7 +865,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 
 	// Interaction (H1.1).
 	if math.IsNaN(mr[0]) || math.IsNaN(mr[1]) {
-		out.Capacity = sc.commit(k.n)
+		out.Capacity = sc.arena.Commit(k.n)
 		return
 	}
 	v, hc := Interaction(math.Abs(pr), pc, mr[0], mcap[0], mr[1], mcap[1])
@@ -898,7 +879,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 			Add("M_ry", checks.KNm(mr[1]), "kNm").Add("M_cy", checks.KNm(mcap[1]), "kNm")
 	}
 	k.add(CheckInteraction, hc, v, 1, "", "")
-	out.Capacity = sc.commit(k.n)
+	out.Capacity = sc.arena.Commit(k.n)
 }
 
 func flexClause(s *secCap, a int) string {

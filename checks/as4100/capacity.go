@@ -218,7 +218,7 @@ type memberCap struct {
 // MemberContext.Scratch.
 type scratch struct {
 	cap   memberCap
-	arena []checks.CapacityCheck
+	arena checks.CheckArena
 
 	// The section-level values of the last section computed.
 	secKey secKey
@@ -249,31 +249,6 @@ func scratchOf(mc *checks.MemberContext) *scratch {
 		mc.Scratch = sc
 	}
 	return sc
-}
-
-// Arena chunks of capacity checks start small and double up to capChunk.
-const (
-	capFirst = 64
-	capChunk = 8192
-)
-
-// reserve returns room for n checks at the end of the arena; commit keeps
-// the first k of them. The checks are written in place: no copy.
-func (s *scratch) reserve(n int) []checks.CapacityCheck {
-	if cap(s.arena)-len(s.arena) < n {
-		s.arena = make([]checks.CapacityCheck, 0, max(n, min(capChunk, max(capFirst, 2*cap(s.arena)))))
-	}
-	l := len(s.arena)
-	return s.arena[l : l+n : l+n]
-}
-
-func (s *scratch) commit(k int) []checks.CapacityCheck {
-	if k == 0 {
-		return nil
-	}
-	l := len(s.arena)
-	s.arena = s.arena[:l+k]
-	return s.arena[l : l+k : l+k]
 }
 
 // platesOf returns the plate elements of sec (from pl, its geometry),
@@ -1031,7 +1006,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 		cx.Reason(m.code, m.msg, "")
 		return
 	}
-	k := &combo{r: r, cx: cx, tr: tr, buf: sc.reserve(maxChecks)}
+	k := &combo{r: r, cx: cx, tr: tr, buf: sc.arena.Reserve(maxChecks)}
 	n := cx.Actions.NStar
 	mx, okx := designMoment(&out.Axes[checks.Major])
 	my, oky := designMoment(&out.Axes[checks.Minor])
@@ -1049,7 +1024,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 	} else {
 		r.tensionChecks(k, m, -n, mx, my, okx, oky)
 	}
-	out.Capacity = sc.commit(k.n)
+	out.Capacity = sc.arena.Commit(k.n)
 }
 
 // mb returns the member moment capacity Mbx of the combination (5.6.1.1)

@@ -146,7 +146,7 @@ type scratch struct {
 	keyOK bool
 	sec   secCap
 	mem   memCap
-	arena []checks.CapacityCheck
+	arena checks.CheckArena
 }
 
 func scratchOf(mc *checks.MemberContext) *scratch {
@@ -160,28 +160,6 @@ func scratchOf(mc *checks.MemberContext) *scratch {
 
 // maxChecks is the most checks one combination adds.
 const maxChecks = 5
-
-// arenaChunk is the number of checks allocated at once.
-const arenaChunk = 4096
-
-// reserve returns room for n checks in the arena.
-func (sc *scratch) reserve(n int) []checks.CapacityCheck {
-	if cap(sc.arena)-len(sc.arena) < n {
-		sc.arena = make([]checks.CapacityCheck, 0, max(arenaChunk, n))
-	}
-	l := len(sc.arena)
-	return sc.arena[l : l+n : l+n]
-}
-
-// commit keeps the first n checks of the last reserve and returns them.
-func (sc *scratch) commit(n int) []checks.CapacityCheck {
-	if n == 0 {
-		return nil
-	}
-	l := len(sc.arena)
-	sc.arena = sc.arena[:l+n]
-	return sc.arena[l : l+n : l+n]
-}
 
 // pick returns y for the major axis and z for the minor.
 func pick(a int, y, z string) string {
@@ -642,7 +620,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 		cx.Reason(s.code, s.msg, "")
 		return
 	}
-	k := combo{cx: cx, tr: tr, buf: sc.reserve(maxChecks)}
+	k := combo{cx: cx, tr: tr, buf: sc.arena.Reserve(maxChecks)}
 	on := tr.On()
 	nEd := cx.Actions.NStar
 	var mEd [2]float64
@@ -696,7 +674,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 		if s.ltb && mEd[0] > 0 && ltbKnown {
 			k.add(CheckLateralTorsional, clauseMbRd, mEd[0], chiLT*mRk[0]/GammaM1, "N·mm", "major")
 		}
-		out.Capacity = sc.commit(k.n)
+		out.Capacity = sc.arena.Commit(k.n)
 		return
 	}
 
@@ -707,7 +685,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 		}
 	}
 	if !known {
-		out.Capacity = sc.commit(k.n)
+		out.Capacity = sc.arena.Commit(k.n)
 		return
 	}
 
@@ -724,7 +702,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 
 	// Member interaction (6.3.3(4), Annex B).
 	if math.IsNaN(m.chi[0]) || math.IsNaN(m.chi[1]) || !ltbKnown {
-		out.Capacity = sc.commit(k.n)
+		out.Capacity = sc.arena.Commit(k.n)
 		return
 	}
 	var cm [2]float64
@@ -763,7 +741,7 @@ func (r *Rules) Capacity(cx *checks.CombinationContext, out *checks.CombinationR
 	}
 	k.add(CheckMemberMajor, clause661, u61, 1, "", "major")
 	k.add(CheckMemberMinor, clause662, u62, 1, "", "minor")
-	out.Capacity = sc.commit(k.n)
+	out.Capacity = sc.arena.Commit(k.n)
 }
 
 // lateralTorsional computes chi_LT of the member's segment for the
