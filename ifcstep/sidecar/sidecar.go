@@ -153,34 +153,9 @@ func parseTheory(s string) (checks.Theory, bool) {
 }
 
 func parseCSV(data []byte, name string) (*File, error) {
-	r := csv.NewReader(bytes.NewReader(data))
-	r.Comment = '#'
-	r.FieldsPerRecord = -1
-	r.TrimLeadingSpace = true
-	header, err := r.Read()
-	if err == io.EOF {
-		return nil, &Error{File: name, Msg: "empty file: want a header row " + strings.Join(requiredCols[:], ",")}
-	}
+	r, idx, err := csvHeader(data, name, "", requiredCols[:], knownColumn, "theory, m_major_peak_kNm, m_minor_peak_kNm")
 	if err != nil {
-		return nil, csvError(name, err)
-	}
-	hline, _ := r.FieldPos(0)
-	idx := map[string]int{}
-	for i, h := range header {
-		key := strings.ToLower(strings.TrimSpace(h))
-		if !knownColumn(key) {
-			return nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "unknown column " + strconv.Quote(h) +
-				" (want " + strings.Join(requiredCols[:], ",") + ", and optionally theory, m_major_peak_kNm, m_minor_peak_kNm)"}
-		}
-		if _, dup := idx[key]; dup {
-			return nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "column " + strconv.Quote(h) + " given twice"}
-		}
-		idx[key] = i
-	}
-	for _, c := range requiredCols {
-		if _, ok := idx[c]; !ok {
-			return nil, &Error{File: name, Line: hline, Msg: "missing column " + strconv.Quote(c)}
-		}
+		return nil, err
 	}
 	b := newBuilder(name)
 	for {
@@ -195,8 +170,8 @@ func parseCSV(data []byte, name string) (*File, error) {
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}
-		if len(rec) != len(header) {
-			return nil, &Error{File: name, Line: line, Msg: "row has " + strconv.Itoa(len(rec)) + " fields, the header " + strconv.Itoa(len(header))}
+		if len(rec) != len(idx) {
+			return nil, &Error{File: name, Line: line, Msg: "row has " + strconv.Itoa(len(rec)) + " fields, the header " + strconv.Itoa(len(idx))}
 		}
 		cell := func(c string) (string, int) {
 			i, ok := idx[c]
@@ -486,4 +461,42 @@ func (jr *jsonRow) row(line int) (Row, error) {
 	}
 	r.Theory = t
 	return r, nil
+}
+
+// csvHeader opens a CSV file and reads its header row: every column must be
+// known, none given twice, every required one present. what names the kind
+// of file in the empty-file message ("" or "storey "); optional lists the
+// optional columns for messages. It returns the reader, positioned after the
+// header, and each column's index by its lower-case name.
+func csvHeader(data []byte, name, what string, required []string, known func(string) bool, optional string) (*csv.Reader, map[string]int, error) {
+	r := csv.NewReader(bytes.NewReader(data))
+	r.Comment = '#'
+	r.FieldsPerRecord = -1
+	r.TrimLeadingSpace = true
+	header, err := r.Read()
+	if err == io.EOF {
+		return nil, nil, &Error{File: name, Msg: "empty " + what + "file: want a header row " + strings.Join(required, ",")}
+	}
+	if err != nil {
+		return nil, nil, csvError(name, err)
+	}
+	hline, _ := r.FieldPos(0)
+	idx := map[string]int{}
+	for i, h := range header {
+		key := strings.ToLower(strings.TrimSpace(h))
+		if !known(key) {
+			return nil, nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "unknown column " + strconv.Quote(h) +
+				" (want " + strings.Join(required, ",") + ", and optionally " + optional + ")"}
+		}
+		if _, dup := idx[key]; dup {
+			return nil, nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "column " + strconv.Quote(h) + " given twice"}
+		}
+		idx[key] = i
+	}
+	for _, c := range required {
+		if _, ok := idx[c]; !ok {
+			return nil, nil, &Error{File: name, Line: hline, Msg: "missing column " + strconv.Quote(c)}
+		}
+	}
+	return r, idx, nil
 }

@@ -7,7 +7,6 @@ package sidecar
 
 import (
 	"bytes"
-	"encoding/csv"
 	"encoding/json"
 	"errors"
 	"io"
@@ -142,34 +141,9 @@ func knownStoreyColumn(c string) bool {
 }
 
 func parseStoreysCSV(data []byte, name string) ([]checks.StoreyData, error) {
-	r := csv.NewReader(bytes.NewReader(data))
-	r.Comment = '#'
-	r.FieldsPerRecord = -1
-	r.TrimLeadingSpace = true
-	header, err := r.Read()
-	if err == io.EOF {
-		return nil, &Error{File: name, Msg: "empty storey file: want a header row " + strings.Join(storeyCols[:], ",")}
-	}
+	r, idx, err := csvHeader(data, name, "storey ", storeyCols[:], knownStoreyColumn, "vertical_load_kN, storey_key")
 	if err != nil {
-		return nil, csvError(name, err)
-	}
-	hline, _ := r.FieldPos(0)
-	idx := map[string]int{}
-	for i, h := range header {
-		key := strings.ToLower(strings.TrimSpace(h))
-		if !knownStoreyColumn(key) {
-			return nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "unknown column " + strconv.Quote(h) +
-				" (want " + strings.Join(storeyCols[:], ",") + ", and optionally vertical_load_kN, storey_key)"}
-		}
-		if _, dup := idx[key]; dup {
-			return nil, &Error{File: name, Line: hline, Column: i + 1, Msg: "column " + strconv.Quote(h) + " given twice"}
-		}
-		idx[key] = i
-	}
-	for _, c := range storeyCols {
-		if _, ok := idx[c]; !ok {
-			return nil, &Error{File: name, Line: hline, Msg: "missing column " + strconv.Quote(c)}
-		}
+		return nil, err
 	}
 	col := func(c string) int {
 		if i, ok := idx[c]; ok {
@@ -190,8 +164,8 @@ func parseStoreysCSV(data []byte, name string) ([]checks.StoreyData, error) {
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}
-		if len(rec) != len(header) {
-			return nil, &Error{File: name, Line: line, Msg: "row has " + strconv.Itoa(len(rec)) + " fields, the header " + strconv.Itoa(len(header))}
+		if len(rec) != len(idx) {
+			return nil, &Error{File: name, Line: line, Msg: "row has " + strconv.Itoa(len(rec)) + " fields, the header " + strconv.Itoa(len(idx))}
 		}
 		cell := func(c string) string {
 			if i, ok := idx[c]; ok {
