@@ -56,7 +56,7 @@ python3 -c "import sys
 s=float(sys.argv[1]); f,m=float(sys.argv[2]),float(sys.argv[3])
 print('ratio web-ifc open / swaygate scan (median): first open %.1fx, warm median %.1fx  (target >= 5x)'%(f/s, m/s))" "$scan_med" "$w_first" "$w_med"
 
-rss() { /usr/bin/time -v "$@" 2>&1 >/dev/null | awk -F: '/Maximum resident/ {gsub(/ /,"",$2); print $2}'; }
+rss() { { /usr/bin/time -v "$@" 2>&1 >/dev/null || true; } | awk -F: '/Maximum resident/ {gsub(/ /,"",$2); print $2}'; }
 base=$(rss "$sg" version)
 echo "peak RSS swaygate version: ${base} KiB"
 if [ -f "$m300" ]; then
