@@ -343,7 +343,9 @@ var jsonUnits = map[string]struct {
 }
 
 // writeTrace writes the steps as given: their values are already in the unit
-// each step names.
+// each step names. Step values and inputs are rounded to traceDigits (6)
+// significant digits: enough for a hand calculation, and several times
+// faster to format than the shortest round-trip form of the other fields.
 func writeTrace(j *jsonWriter, steps []checks.Step) {
 	j.key("trace")
 	j.beginArray()
@@ -358,12 +360,12 @@ func writeTrace(j *jsonWriter, steps []checks.Step) {
 		for _, in := range s.In() {
 			j.beginObject()
 			j.fStr("name", in.Name)
-			j.fNum("value", in.Value)
+			j.fNum6("value", in.Value)
 			j.fStr("unit", in.Unit)
 			j.endObject()
 		}
 		j.endArray()
-		j.fNum("value", s.Value)
+		j.fNum6("value", s.Value)
 		j.fStr("unit", s.Unit)
 		if s.Combination != "" {
 			j.fStr("combination", s.Combination)

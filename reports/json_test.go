@@ -6,6 +6,7 @@ import (
 	"errors"
 	"math"
 	"math/rand/v2"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -213,6 +214,54 @@ func TestWriteJSONFloats(t *testing.T) {
 		var back float64
 		if err := json.Unmarshal(b, &back); err != nil || back != f && f != 0 {
 			t.Errorf("%v written as %s, read back %v (%v)", f, b, back, err)
+		}
+	}
+}
+
+// TestWriteJSONFloats6 checks the trace numbers: six significant digits,
+// correctly rounded, in the plain layout of appendJSONFloat.
+func TestWriteJSONFloats6(t *testing.T) {
+	for _, tc := range []struct {
+		in   float64
+		want string
+	}{
+		{0, "0"}, {math.Copysign(0, -1), "0"}, {math.NaN(), "null"}, {math.Inf(-1), "null"},
+		{210000, "210000"}, {-4500, "-4500"}, {1.4, "1.4"}, {1, "1"},
+		{5459.591225192451, "5459.59"}, {104549554.33142602, "104550000"}, {516352213541.6667, "516352000000"},
+		{0.4314676050528405, "0.431468"}, {-0.000123456789, "-0.000123457"}, {1e-6, "0.000001"},
+		{999999.5, "1000000"}, {9.999995, "10"}, {9.9999949, "9.99999"}, {0.1234565, "0.123456"}, {0.12345651, "0.123457"},
+		{1.5e-7, "1.5e-7"}, {-2.0000004e-9, "-2e-9"}, {1e21, "1e+21"}, {1.234567e300, "1.23457e+300"},
+		{123456.5, "123456"}, {123457.5, "123458"}, {1234567, "1234570"}, {100000000000000000000, "100000000000000000000"},
+	} {
+		if got := string(appendJSONFloat6(nil, tc.in)); got != tc.want {
+			t.Errorf("appendJSONFloat6(%v) = %s, want %s", tc.in, got, tc.want)
+		}
+	}
+	// Random values of every magnitude, and values on a rounding boundary,
+	// against strconv's correctly rounded digits.
+	rng := rand.New(rand.NewPCG(1, 1))
+	var vals []float64
+	for i := 0; i < 20000; i++ {
+		vals = append(vals, math.Float64frombits(rng.Uint64()))
+		e := rng.IntN(40) - 12
+		m := float64(100000+rng.IntN(900000)) + 0.5 // a half way case at 6 digits
+		vals = append(vals, (m/1e5)*math.Pow(10, float64(e)), rng.NormFloat64()*math.Pow(10, float64(e)))
+	}
+	for _, f := range vals {
+		got := appendJSONFloat6(nil, f)
+		if math.IsNaN(f) || math.IsInf(f, 0) {
+			continue
+		}
+		back, err := strconv.ParseFloat(string(got), 64)
+		if err != nil || !json.Valid(got) {
+			t.Fatalf("%v written as %s: not a JSON number", f, got)
+		}
+		want, _ := strconv.ParseFloat(strconv.FormatFloat(f, 'e', 5, 64), 64)
+		if back != want {
+			t.Fatalf("%v written as %s, want the value of %s", f, got, strconv.FormatFloat(f, 'e', 5, 64))
+		}
+		if bytes.HasSuffix(got, []byte("0")) && bytes.IndexByte(got, '.') >= 0 && bytes.IndexByte(got, 'e') < 0 {
+			t.Fatalf("%v written as %s: trailing zero", f, got)
 		}
 	}
 }

@@ -118,6 +118,13 @@ func (j *jsonWriter) fNumPos(k string, v float64) { j.key(k); j.numPos(v) }
 func (j *jsonWriter) fInt(k string, v int)        { j.key(k); j.int(v) }
 func (j *jsonWriter) fBool(k string, v bool)      { j.key(k); j.bool(v) }
 
+// fNum6 writes a trace number, rounded to traceDigits significant digits.
+func (j *jsonWriter) fNum6(k string, v float64) {
+	j.key(k)
+	j.sep()
+	j.buf = appendJSONFloat6(j.buf, v)
+}
+
 // appendJSONFloat formats f as encoding/json does (shortest representation
 // that round-trips, exponent form only for very small or large magnitudes),
 // and NaN or ±Inf as null.
@@ -149,6 +156,184 @@ func appendJSONFloat(b []byte, f float64) []byte {
 		}
 	}
 	return b
+}
+
+// traceDigits is the number of significant digits of the numbers of a
+// trace (step values and inputs): a hand calculation never needs more, and
+// they are most of the numbers of a traced report. Element and combination
+// fields keep the shortest round-trip form of appendJSONFloat.
+const traceDigits = 6
+
+// pow10 holds the powers of ten that are exact in float64.
+var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10,
+	1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22}
+
+// appendJSONFloat6 formats f rounded to 6 significant digits (traceDigits),
+// without trailing zeros, in the layout of appendJSONFloat: plain decimals
+// for magnitudes from 1e-6 to below 1e21, exponent form outside, and null
+// for NaN and ±Inf. 1234.5678 → 1234.57, 104549554.33 → 104550000,
+// 0.000123456789 → 0.000123457.
+//
+// The digits are those of strconv's correctly rounded 'e' format. Most
+// values take a fast path instead, about 2× faster than that format and 3×
+// faster than the shortest round-trip form: the value is scaled by
+// an exact power of ten to a number m in [1e5, 1e6) with a single rounding
+// (error below 2e-10), and m rounded to an integer gives the six digits;
+// values whose m lies within 1e-6 of a rounding boundary take strconv's
+// path, so that the digits are always the correctly rounded ones.
+func appendJSONFloat6(b []byte, f float64) []byte {
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return append(b, "null"...)
+	}
+	if f == 0 {
+		return append(b, '0') // also for -0
+	}
+	abs := math.Abs(f)
+	if abs < 1e6 && f == math.Trunc(f) {
+		return strconv.AppendInt(b, int64(f), 10) // at most 6 digits: exact
+	}
+	if abs < 1e-6 || abs >= 1e21 {
+		return appendExp6(b, f)
+	}
+	digits, exp, ok := sixDigits(abs)
+	if !ok {
+		digits, exp = sixDigitsExact(abs)
+	}
+	if f < 0 {
+		b = append(b, '-')
+	}
+	return appendDecimal(b, digits, exp)
+}
+
+// sixDigits returns the value rounded to 6 significant digits as an integer
+// in [1e5, 1e6) and the decimal exponent of its first digit, for 1e-6 <= v <
+// 1e21; ok is false when the rounding cannot be decided in float64.
+func sixDigits(v float64) (digits uint64, exp int, ok bool) {
+	// The decimal exponent: 10^exp <= v < 10^(exp+1), from the binary
+	// exponent (log10(2) ≈ 78913/2^18), corrected by one comparison.
+	e2 := int(math.Float64bits(v)>>52&0x7FF) - 1023 // v = 1.f·2^e2 (v is normal)
+	exp = (e2 * 78913) >> 18
+	if exp+1 >= 0 && exp+1 < len(pow10) && v >= pow10[exp+1] {
+		exp++
+	} else if exp < 0 && -exp-1 < len(pow10) && v >= 1/pow10[-exp-1] {
+		exp++
+	}
+	var m float64
+	switch k := 5 - exp; {
+	case k >= 0 && k < len(pow10):
+		m = v * pow10[k]
+	case k < 0 && -k < len(pow10):
+		m = v / pow10[-k]
+	default:
+		return 0, 0, false
+	}
+	if m < 99999.5 || m >= 999999.5 {
+		return 0, 0, false // exponent guess off, or rounds up to a new digit
+	}
+	fl := uint64(m) // m > 0: truncation is the floor
+	d := m - float64(fl) - 0.5
+	if d > -1e-6 && d < 1e-6 {
+		return 0, 0, false // too close to half way to decide here
+	}
+	if d > 0 {
+		fl++
+	}
+	return fl, exp, true
+}
+
+// sixDigitsExact is sixDigits by strconv's correctly rounded formatting.
+func sixDigitsExact(v float64) (digits uint64, exp int) {
+	var tmp [32]byte
+	s := strconv.AppendFloat(tmp[:0], v, 'e', traceDigits-1, 64) // d.ddddde±dd
+	for _, c := range s {
+		if c == 'e' {
+			break
+		}
+		if c != '.' {
+			digits = digits*10 + uint64(c-'0')
+		}
+	}
+	k := len(s) - 1
+	for s[k-1] != 'e' && s[k-1] != '+' && s[k-1] != '-' {
+		k--
+	}
+	for _, c := range s[k:] {
+		exp = exp*10 + int(c-'0')
+	}
+	if s[k-1] == '-' {
+		exp = -exp
+	}
+	return digits, exp
+}
+
+// appendDecimal writes the 6-digit integer digits (first digit at decimal
+// exponent exp, -6 <= exp <= 20) as a plain decimal without trailing zeros.
+// The text is laid out in a small array and appended once.
+func appendDecimal(b []byte, digits uint64, exp int) []byte {
+	var d [traceDigits]byte
+	for i := traceDigits - 2; i >= 0; i -= 2 {
+		r := digits % 100
+		digits /= 100
+		d[i], d[i+1] = digitPairs[2*r], digitPairs[2*r+1]
+	}
+	n := traceDigits
+	for n > 1 && d[n-1] == '0' {
+		n--
+	}
+	var t [32]byte
+	k := 0
+	switch {
+	case exp < 0:
+		t[0], t[1] = '0', '.'
+		k = 2
+		for i := -1; i > exp; i-- {
+			t[k] = '0'
+			k++
+		}
+		k += copy(t[k:], d[:n])
+	case n <= exp+1:
+		k = copy(t[:], d[:n])
+		for i := n; i <= exp; i++ {
+			t[k] = '0'
+			k++
+		}
+	default:
+		k = copy(t[:], d[:exp+1])
+		t[k] = '.'
+		k++
+		k += copy(t[k:], d[exp+1:n])
+	}
+	return append(b, t[:k]...)
+}
+
+// digitPairs holds "00" to "99".
+const digitPairs = "00010203040506070809101112131415161718192021222324252627282930313233343536373839" +
+	"40414243444546474849505152535455565758596061626364656667686970717273747576777879" +
+	"8081828384858687888990919293949596979899"
+
+// appendExp6 writes f with 6 significant digits in exponent form, as
+// encoding/json writes exponents (1.5e-7, 2e+21).
+func appendExp6(b []byte, f float64) []byte {
+	var tmp [32]byte
+	s := strconv.AppendFloat(tmp[:0], f, 'e', traceDigits-1, 64)
+	k := 0
+	for s[k] != 'e' {
+		k++
+	}
+	m := k
+	for s[m-1] == '0' {
+		m--
+	}
+	if s[m-1] == '.' {
+		m--
+	}
+	b = append(b, s[:m]...)
+	b = append(b, 'e', s[k+1])
+	e := s[k+2:]
+	if len(e) > 1 && e[0] == '0' {
+		e = e[1:]
+	}
+	return append(b, e...)
 }
 
 const hexDigits = "0123456789abcdef"
