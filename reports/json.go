@@ -16,12 +16,20 @@ import (
 // caution. Unknown numbers are null. The report is streamed element by
 // element through a buffer of about 64 KiB; nothing proportional to the
 // number of members is held except a set of GlobalIds used to reject
-// duplicates before anything is written.
+// duplicates before anything is written. On a large report the elements are
+// formatted on every core, a few batches at a time, and written in member
+// order (the output does not depend on the number of cores).
 //
 // WriteJSON returns an error, before writing anything, when an element has no
 // member, an empty GlobalId or a GlobalId used by an earlier element (a JSON
 // object cannot hold both); otherwise it returns the first write error.
 func WriteJSON(w io.Writer, r *checks.Report, run Run) error {
+	return writeJSONWorkers(w, r, run, jsonWorkers())
+}
+
+// writeJSONWorkers is WriteJSON with the elements formatted on workers goroutines
+// (one: on the caller's only).
+func writeJSONWorkers(w io.Writer, r *checks.Report, run Run, workers int) error {
 	if err := checkElements(r.Elements); err != nil {
 		return err
 	}
@@ -61,12 +69,7 @@ func WriteJSON(w io.Writer, r *checks.Report, run Run) error {
 
 	j.key("elements")
 	j.beginObject()
-	var steps []checks.Step
-	for i := range r.Elements {
-		steps = elementTrace(r, i, steps[:0])
-		writeElement(j, &r.Elements[i], steps, r.Scope == "full")
-		j.maybeFlush()
-	}
+	writeElements(j, r, r.Scope == "full", workers)
 	j.endObject()
 
 	if r.Frame != nil {

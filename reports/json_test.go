@@ -11,6 +11,7 @@ import (
 	"testing"
 
 	"swaygate/checks"
+	"swaygate/checks/standards"
 )
 
 func writeJSON(t *testing.T, r *checks.Report, run Run) []byte {
@@ -263,6 +264,60 @@ func TestWriteJSONFloats6(t *testing.T) {
 		if bytes.HasSuffix(got, []byte("0")) && bytes.IndexByte(got, '.') >= 0 && bytes.IndexByte(got, 'e') < 0 {
 			t.Fatalf("%v written as %s: trailing zero", f, got)
 		}
+	}
+}
+
+// TestWriteJSONParallel checks that formatting the elements on several
+// goroutines writes exactly what one goroutine writes: stored traces, and
+// traces replayed on demand by the engine (full and summary).
+func TestWriteJSONParallel(t *testing.T) {
+	stored := benchReport(300, 3)
+	fx := fxReport(true)
+	for i := range stored.Elements {
+		stored.Elements[i].Trace = fx.Elements[i%len(fx.Elements)].Trace
+	}
+	stored.Elements[7].Trace = nil // an element without a trace among traced ones
+	reps := map[string]*checks.Report{"stored": stored, "none": benchReport(300, 2)}
+	rs, err := standards.Lookup("as4100")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, level := range []string{"full", "summary"} {
+		m := fxModel()
+		base := m.Members
+		m.Members = nil
+		for i := range 250 {
+			mb := base[i%len(base)]
+			mb.GlobalID = benchGlobalID(i)
+			m.Members = append(m.Members, mb)
+		}
+		opt := checks.DefaultOptions()
+		opt.Scope, opt.Trace, opt.TraceOnDemand = "stability", level, true
+		rep, err := checks.Run(m, rs, opt)
+		if err != nil {
+			t.Fatal(err)
+		}
+		reps["on-demand-"+level] = rep
+	}
+	for name, r := range reps {
+		t.Run(name, func(t *testing.T) {
+			var one, many bytes.Buffer
+			if err := writeJSONWorkers(&one, r, fxRun, 1); err != nil {
+				t.Fatal(err)
+			}
+			if err := writeJSONWorkers(&many, r, fxRun, 3); err != nil {
+				t.Fatal(err)
+			}
+			if !bytes.Equal(one.Bytes(), many.Bytes()) {
+				t.Fatalf("3 workers wrote %d bytes, one %d: the outputs differ", many.Len(), one.Len())
+			}
+			if traced := bytes.Count(one.Bytes(), []byte(`"trace":[{`)); name != "none" && traced < 200 {
+				t.Fatalf("%d elements with a trace", traced)
+			}
+			if err := ValidateJSON(many.Bytes()); err != nil {
+				t.Fatal(err)
+			}
+		})
 	}
 }
 

@@ -1,0 +1,126 @@
+package reports
+
+import (
+	"runtime"
+
+	"swaygate/checks"
+)
+
+// The elements are most of a report (a traced member is some 15 KB of JSON)
+// and each is formatted on its own, so WriteJSON formats batches of them on
+// every core. The calling goroutine replays the traces (Report.AppendTrace is
+// not safe for concurrent use), hands each batch to a worker, and writes the
+// finished batches in member order, so that the output is byte for byte what
+// one goroutine writes. A few batches are in flight at a time, which bounds
+// the memory to some megabytes whatever the number of members.
+
+const (
+	// batchElements is the number of elements formatted as one batch.
+	batchElements = 16
+	// parallelMin is the smallest number of elements worth the workers.
+	parallelMin = 4 * batchElements
+)
+
+// elemBatch is a run of elements [lo, hi) and, once formatted, their JSON.
+type elemBatch struct {
+	lo, hi int
+	steps  []checks.Step   // replayed steps of all the batch's elements
+	traces [][]checks.Step // each element's steps
+	ends   []int           // end of each element's steps in steps
+	out    []byte
+	done   chan struct{} // closed when out is ready
+}
+
+// writeElements writes the members of the "elements" object, on workers
+// goroutines besides the caller when there are enough of them.
+func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
+	n := len(r.Elements)
+	if workers < 2 || n < parallelMin {
+		var steps []checks.Step
+		for i := range r.Elements {
+			steps = elementTrace(r, i, steps[:0])
+			writeElement(j, &r.Elements[i], steps, full)
+			j.maybeFlush()
+		}
+		return
+	}
+	j.flush()
+	jobs := make(chan *elemBatch, workers)
+	for range workers {
+		go func() {
+			for b := range jobs {
+				w := jsonWriter{buf: b.out[:0], comma: b.lo > 0}
+				for k := range b.traces {
+					writeElement(&w, &r.Elements[b.lo+k], b.traces[k], full)
+				}
+				b.out = w.buf
+				close(b.done)
+			}
+		}()
+	}
+	defer close(jobs)
+
+	inflight := 2*workers + 1
+	queue := make([]*elemBatch, 0, inflight)
+	emit := func() *elemBatch {
+		b := queue[0]
+		queue = queue[1:]
+		<-b.done
+		j.writeChunks(b.out)
+		return b
+	}
+	for lo := 0; lo < n; lo += batchElements {
+		var b *elemBatch
+		if len(queue) == inflight {
+			b = emit()
+		} else {
+			b = &elemBatch{out: make([]byte, 0, 256<<10)}
+		}
+		b.lo, b.hi = lo, min(lo+batchElements, n)
+		b.fill(r)
+		b.done = make(chan struct{})
+		queue = append(queue, b)
+		jobs <- b
+	}
+	for len(queue) > 0 {
+		emit()
+	}
+}
+
+// fill gathers the traces of the batch's elements: the stored ones, or the
+// ones the report replays on demand.
+func (b *elemBatch) fill(r *checks.Report) {
+	b.steps, b.ends, b.traces = b.steps[:0], b.ends[:0], b.traces[:0]
+	for i := b.lo; i < b.hi; i++ {
+		if t := r.Elements[i].Trace; t != nil {
+			b.ends = append(b.ends, -1)
+			continue
+		}
+		b.steps = r.AppendTrace(b.steps, i)
+		b.ends = append(b.ends, len(b.steps))
+	}
+	start := 0
+	for k, end := range b.ends {
+		if end < 0 {
+			b.traces = append(b.traces, r.Elements[b.lo+k].Trace)
+			continue
+		}
+		b.traces = append(b.traces, b.steps[start:end:end])
+		start = end
+	}
+}
+
+// writeChunks writes p, which follows the buffered bytes, in writes of at
+// most flushAt bytes; after a write error it writes nothing.
+func (j *jsonWriter) writeChunks(p []byte) {
+	j.flush()
+	for len(p) > 0 && j.err == nil {
+		k := min(len(p), flushAt)
+		_, j.err = j.w.Write(p[:k])
+		p = p[k:]
+	}
+	j.comma = true
+}
+
+// jsonWorkers is the number of goroutines that format elements.
+func jsonWorkers() int { return runtime.GOMAXPROCS(0) }
