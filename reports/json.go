@@ -352,35 +352,52 @@ var jsonUnits = map[string]struct {
 func writeTrace(j *jsonWriter, steps []checks.Step) {
 	j.key("trace")
 	j.beginArray()
+	// The steps are most of a traced report: their fields are appended
+	// directly, with the keys and separators as literals.
+	b := j.buf
 	for i := range steps {
 		s := &steps[i]
-		j.beginObject()
-		j.fStr("quantity", s.Quantity)
-		j.fStr("clause", s.Clause)
-		j.fStr("formula", s.Formula)
-		j.key("inputs")
-		j.beginArray()
-		for _, in := range s.In() {
-			j.beginObject()
-			j.fStr("name", in.Name)
-			j.fNum6("value", in.Value)
-			j.fStr("unit", in.Unit)
-			j.endObject()
+		if i > 0 {
+			b = append(b, ',')
 		}
-		j.endArray()
-		j.fNum6("value", s.Value)
-		j.fStr("unit", s.Unit)
+		b = append(b, `{"quantity":`...)
+		b = appendJSONString(b, s.Quantity)
+		b = append(b, `,"clause":`...)
+		b = appendJSONString(b, s.Clause)
+		b = append(b, `,"formula":`...)
+		b = appendJSONString(b, s.Formula)
+		b = append(b, `,"inputs":[`...)
+		for k, in := range s.In() {
+			if k > 0 {
+				b = append(b, ',')
+			}
+			b = append(b, `{"name":`...)
+			b = appendJSONString(b, in.Name)
+			b = append(b, `,"value":`...)
+			b = appendJSONFloat6(b, in.Value)
+			b = append(b, `,"unit":`...)
+			b = appendJSONString(b, in.Unit)
+			b = append(b, '}')
+		}
+		b = append(b, `],"value":`...)
+		b = appendJSONFloat6(b, s.Value)
+		b = append(b, `,"unit":`...)
+		b = appendJSONString(b, s.Unit)
 		if s.Combination != "" {
-			j.fStr("combination", s.Combination)
+			b = append(b, `,"combination":`...)
+			b = appendJSONString(b, s.Combination)
 		}
 		if s.Axis != "" {
-			j.fStr("axis", s.Axis)
+			b = append(b, `,"axis":`...)
+			b = appendJSONString(b, s.Axis)
 		}
 		if s.Note != "" {
-			j.fStr("note", s.Note)
+			b = append(b, `,"note":`...)
+			b = appendJSONString(b, s.Note)
 		}
-		j.endObject()
+		b = append(b, '}')
 	}
+	j.buf = b
 	j.endArray()
 }
 

@@ -118,13 +118,6 @@ func (j *jsonWriter) fNumPos(k string, v float64) { j.key(k); j.numPos(v) }
 func (j *jsonWriter) fInt(k string, v int)        { j.key(k); j.int(v) }
 func (j *jsonWriter) fBool(k string, v bool)      { j.key(k); j.bool(v) }
 
-// fNum6 writes a trace number, rounded to traceDigits significant digits.
-func (j *jsonWriter) fNum6(k string, v float64) {
-	j.key(k)
-	j.sep()
-	j.buf = appendJSONFloat6(j.buf, v)
-}
-
 // appendJSONFloat formats f as encoding/json does (shortest representation
 // that round-trips, exponent form only for very small or large magnitudes),
 // and NaN or ±Inf as null.
