@@ -374,3 +374,43 @@ func TestCheckCompressedModels(t *testing.T) {
 		sameResults(t, filepath.Base(p), plain, checkJSON(t, p), 0)
 	}
 }
+
+// TestCheckImperialModel: a model in inch, kip, kip-ft and ksi checks end to
+// end under AISC 360; the report stays SI and the text shows kip.
+func TestCheckImperialModel(t *testing.T) {
+	model := filepath.Join("..", "..", "testdata", "ifc", "imperial.ifc")
+	out, stderr, code := runCheckCmd(t, model, "--standard", "aisc360", "--format", "json")
+	if code == exitUsage {
+		t.Fatal(stderr)
+	}
+	var r struct {
+		Elements map[string]struct {
+			Verdict  string
+			Length   float64 `json:"length_mm"`
+			Material struct {
+				Fy float64 `json:"fy_mpa"`
+			}
+			Combinations []struct {
+				NStar float64 `json:"n_star_kn"`
+			}
+		}
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatal(err)
+	}
+	for id, e := range r.Elements {
+		// source: exact unit definitions: 12 ft = 3657.6 mm; 500 kip =
+		// 500 × 4.4482216152605 kN; 50 ksi = 344.738 MPa (ASTM A992 Fy).
+		if math.Abs(e.Length-3657.6) > 1e-6 || math.Abs(e.Combinations[0].NStar-2224.1108076) > 1e-6 ||
+			math.Abs(e.Material.Fy-344.7379) > 1e-3 {
+			t.Errorf("%s: length %g mm, N* %g kN, fy %g MPa", id, e.Length, e.Combinations[0].NStar, e.Material.Fy)
+		}
+		if e.Verdict != "pass" {
+			t.Errorf("%s: verdict %s", id, e.Verdict)
+		}
+	}
+	text, _, _ := runCheckCmd(t, model, "--standard", "aisc360", "--units", "us")
+	if !strings.Contains(text, "N* (kip)") || !strings.Contains(text, "500.0") {
+		t.Errorf("US display units missing:\n%s", text)
+	}
+}
