@@ -123,6 +123,7 @@ type File struct {
 	dense   []uint32 // id -> slot+1 when ids are dense; else nil
 	perm    []uint32 // slots sorted by id when ids are neither dense nor ascending
 	relexed int      // chunks skimmed again because their guessed start was wrong
+	mapped  bool     // data is a read-only memory mapping of the file (ReadFile)
 
 	byTypeOnce  sync.Once
 	byTypeStart []uint32 // CSR: slots of type t are byTypeSlots[byTypeStart[t]:byTypeStart[t+1]]
@@ -147,6 +148,20 @@ func (f *File) Len() int { return len(f.ids) }
 
 // Size returns the size of the file in bytes.
 func (f *File) Size() int { return len(f.data) }
+
+// DropPages tells the operating system that f's data will not be read for a
+// while. A memory-mapped file (ReadFile) counts in the process's resident
+// memory once its pages are read; DropPages takes them out of it. They stay
+// in the page cache, and the File stays fully usable: the next access maps
+// them again. For data read into memory DropPages does nothing.
+//
+// A reader that has extracted what it needs from a large model calls it to
+// keep the peak resident memory near the file size.
+func (f *File) DropPages() {
+	if f.mapped {
+		dropPages(f.data)
+	}
+}
 
 // offset returns the byte offset of the instance in slot s.
 func (f *File) offset(s uint32) int {

@@ -33,3 +33,7 @@ func unmapWhenUnreachable(f *File, data []byte) {
 }
 
 func unmap(data []byte) { _ = syscall.Munmap(data) }
+
+// dropPages drops the resident pages of a mapping from the process: they
+// stay in the page cache, and the next access maps them again.
+func dropPages(data []byte) { _ = syscall.Madvise(data, syscall.MADV_DONTNEED) }

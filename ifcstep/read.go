@@ -64,6 +64,7 @@ func ReadFile(path string, opt Options) (*File, error) {
 			unmap(data)
 			return nil, err
 		}
+		f.mapped = true
 		unmapWhenUnreachable(f, data)
 		return f, nil
 	}
