@@ -13,6 +13,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"time"
 
@@ -81,7 +82,9 @@ type Loaded struct {
 
 // Load reads the model (and side-car) of req and extracts its members,
 // without checking them. The model's SHA-256 is computed on another
-// goroutine while it is parsed.
+// goroutine while it is parsed and its members extracted. Once they are,
+// the pages of a memory-mapped model leave the resident memory
+// (ifcstep.File.DropPages), so that the peak stays near the file size.
 func Load(ctx context.Context, req Request) (*Loaded, error) {
 	// The report names the model by its display name (default: the file's
 	// base name); messages by the display name or the path as given.
@@ -135,19 +138,32 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		ropt.Limits = ifcstep.DefaultLimits()
 	}
 	f, err := readModel(req.ModelPath, msgName, ropt)
-	h := <-hc
 	if err != nil {
+		<-hc
 		return nil, err
 	}
-	if h.err != nil {
-		return nil, h.err
+	if f.Size() >= collectAfterRead {
+		// The index of a large model leaves its per-chunk arrays behind
+		// (about a ninth of the file size): collected now, their memory
+		// serves the extraction instead of growing the heap.
+		runtime.GC()
 	}
 	if err := ctx.Err(); err != nil {
+		<-hc
 		return nil, err
 	}
 	m, err := ifc.Extract(f, opt)
 	if err != nil {
+		<-hc
 		return nil, err
+	}
+	// The members hold copies of what they need: the pages of a mapped
+	// model can leave the resident memory (the File stays usable, e.g. for
+	// the frame analysis). The hash, computed meanwhile, is needed only now.
+	f.DropPages()
+	h := <-hc
+	if h.err != nil {
+		return nil, h.err
 	}
 	if req.StoreysPath != "" {
 		sn := req.StoreysName
@@ -172,6 +188,10 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		Info:  reports.ModelInfo{File: name, SHA256: h.sum, Schema: f.Family.String(), Instances: f.Len()},
 	}, nil
 }
+
+// collectAfterRead is the model size from which Load collects garbage
+// between indexing and extraction (see there).
+const collectAfterRead = 64 << 20
 
 // readModel reads (memory-maps) the model file, naming it in messages by its
 // display name so that a server's temporary paths never show.
