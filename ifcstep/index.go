@@ -627,6 +627,12 @@ func (f *File) buildLookup() *perr {
 	}
 	if n > 0 && int64(maxID) < 2*int64(n)+1024 {
 		dense := make([]uint32, int(maxID)+1)
+		// Write the table before reading it: a fresh page that is read
+		// first maps the shared zero page, and the write after it copies
+		// the page and flushes the other cores' TLBs, which cost more than
+		// the whole lookup on a virtual machine (clearing first: 4x less
+		// CPU here on a 316 MB model).
+		clear(dense)
 		for s, id := range f.ids {
 			if prev := dense[id]; prev != 0 {
 				return dup(prev-1, uint32(s))

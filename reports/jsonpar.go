@@ -96,6 +96,7 @@ func (b *elemBatch) fill(r *checks.Report) {
 			b.ends = append(b.ends, -1)
 			continue
 		}
+		b.reserve(stepsReserve)
 		b.steps = r.AppendTrace(b.steps, i)
 		b.ends = append(b.ends, len(b.steps))
 	}
@@ -108,6 +109,25 @@ func (b *elemBatch) fill(r *checks.Report) {
 		b.traces = append(b.traces, b.steps[start:end:end])
 		start = end
 	}
+}
+
+// stepsReserve is the room for the steps of one element that fill keeps
+// ahead of the replay (a summary trace has some 60 steps, a full one a few
+// hundred).
+const stepsReserve = 256
+
+// reserve makes room for n more steps in b.steps. The new storage is
+// written (cleared) before the tracer reads it: a fresh page that is read
+// first maps the shared zero page, and the write that follows costs a page
+// copy and a TLB flush on every core.
+func (b *elemBatch) reserve(n int) {
+	if cap(b.steps)-len(b.steps) >= n {
+		return
+	}
+	s := make([]checks.Step, len(b.steps), 2*cap(b.steps)+n)
+	clear(s[:cap(s)])
+	copy(s, b.steps)
+	b.steps = s
 }
 
 // writeChunks writes p, which follows the buffered bytes, in writes of at

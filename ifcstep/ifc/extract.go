@@ -243,6 +243,11 @@ type candResult struct {
 // model does not depend on the number of workers.
 func (x *extractor) readMembers(cands []candidate) {
 	res := make([]candResult, len(cands))
+	// Written before the workers read it (the write barrier of a struct
+	// copy reads the old contents): a fresh page read first maps the zero
+	// page, and the write after it costs a page copy and a TLB flush on
+	// every core.
+	clear(res)
 	work := func(w *extractor, lo, hi int) {
 		for i := lo; i < hi; i++ {
 			r := &res[i]
