@@ -82,10 +82,25 @@ type Loaded struct {
 
 // Load reads the model (and side-car) of req and extracts its members,
 // without checking them. The model's SHA-256 is computed on another
-// goroutine while it is parsed and its members extracted. Once they are,
+// goroutine while it is read and its members extracted. Once they are,
 // the pages of a memory-mapped model leave the resident memory
 // (ifcstep.File.DropPages), so that the peak stays near the file size.
 func Load(ctx context.Context, req Request) (*Loaded, error) {
+	ld, wait, err := load(ctx, req)
+	if err != nil {
+		return nil, err
+	}
+	if err := wait(); err != nil {
+		return nil, err
+	}
+	return ld, nil
+}
+
+// load is Load, but the hash may still be running when it returns: wait
+// waits for it, sets ld.Info.SHA256 and returns the hash's error. Check
+// waits only after the checks, which run on one core: the hash has the
+// other one.
+func load(ctx context.Context, req Request) (ld *Loaded, wait func() error, err error) {
 	// The report names the model by its display name (default: the file's
 	// base name); messages by the display name or the path as given.
 	name, msgName := req.Name, req.Name
@@ -107,7 +122,7 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		c, err := ifc.ParseSignConvention(req.Convention)
 		if err != nil {
 			<-hc
-			return nil, &OptionError{Msg: err.Error()}
+			return nil, nil, &OptionError{Msg: err.Error()}
 		}
 		opt.Convention = c
 	}
@@ -119,19 +134,19 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		fh, err := os.Open(req.ActionsPath)
 		if err != nil {
 			<-hc
-			return nil, err
+			return nil, nil, err
 		}
 		sc, err := sidecar.Read(fh, an)
 		fh.Close()
 		if err != nil {
 			<-hc
-			return nil, err
+			return nil, nil, err
 		}
 		opt.Actions = sc
 	}
 	if err := ctx.Err(); err != nil {
 		<-hc
-		return nil, err
+		return nil, nil, err
 	}
 	ropt := ifcstep.Options{Limits: req.Limits}
 	if ropt.Limits == (ifcstep.Limits{}) {
@@ -140,7 +155,7 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 	f, err := readModel(req.ModelPath, msgName, ropt)
 	if err != nil {
 		<-hc
-		return nil, err
+		return nil, nil, err
 	}
 	if f.Size() >= collectAfterRead {
 		// The index of a large model leaves its per-chunk arrays behind
@@ -150,21 +165,17 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 	}
 	if err := ctx.Err(); err != nil {
 		<-hc
-		return nil, err
+		return nil, nil, err
 	}
 	m, err := ifc.Extract(f, opt)
 	if err != nil {
 		<-hc
-		return nil, err
+		return nil, nil, err
 	}
 	// The members hold copies of what they need: the pages of a mapped
 	// model can leave the resident memory (the File stays usable, e.g. for
-	// the frame analysis). The hash, computed meanwhile, is needed only now.
+	// the frame analysis).
 	f.DropPages()
-	h := <-hc
-	if h.err != nil {
-		return nil, h.err
-	}
 	if req.StoreysPath != "" {
 		sn := req.StoreysName
 		if sn == "" {
@@ -172,20 +183,27 @@ func Load(ctx context.Context, req Request) (*Loaded, error) {
 		}
 		fh, err := os.Open(req.StoreysPath)
 		if err != nil {
-			return nil, err
+			<-hc
+			return nil, nil, err
 		}
 		rows, err := sidecar.ReadStoreys(fh, sn)
 		fh.Close()
 		if err != nil {
-			return nil, err
+			<-hc
+			return nil, nil, err
 		}
 		m.StoreyData = append(m.StoreyData, rows...)
 	}
 	f.Name = name
-	return &Loaded{
+	ld = &Loaded{
 		File:  f,
 		Model: m,
-		Info:  reports.ModelInfo{File: name, SHA256: h.sum, Schema: f.Family.String(), Instances: f.Len()},
+		Info:  reports.ModelInfo{File: name, Schema: f.Family.String(), Instances: f.Len()},
+	}
+	return ld, func() error {
+		h := <-hc
+		ld.Info.SHA256 = h.sum
+		return h.err
 	}, nil
 }
 
@@ -224,14 +242,18 @@ func Check(ctx context.Context, req Request) (*Result, error) {
 	}
 	req.Options = opt
 
-	ld, err := Load(ctx, req)
+	ld, wait, err := load(ctx, req)
 	if err != nil {
 		return nil, err
 	}
 	if err := ctx.Err(); err != nil {
+		wait()
 		return nil, err
 	}
 	rep, err := runChecks(ld, rs, opt, req)
+	if herr := wait(); err == nil {
+		err = herr
+	}
 	if err != nil {
 		return nil, err
 	}
