@@ -352,36 +352,95 @@ var jsonUnits = map[string]struct {
 func writeTrace(j *jsonWriter, steps []checks.Step) {
 	j.key("trace")
 	j.beginArray()
-	// The steps are most of a traced report: their fields are appended
-	// directly, with the keys and separators as literals.
+	// The steps are most of a traced report. Their text around the two
+	// numbers is cached per position in the trace (stepTexts): consecutive
+	// members have the same steps with the same strings, which compare
+	// equal at once when they share their storage.
+	if len(j.steps) < len(steps) {
+		j.steps = append(j.steps, make([]stepText, len(steps)-len(j.steps))...)
+	}
 	b := j.buf
 	for i := range steps {
 		s := &steps[i]
+		t := &j.steps[i]
 		if i > 0 {
 			b = append(b, ',')
 		}
-		b = append(b, `{"quantity":`...)
+		b = append(b, t.headOf(s)...)
+		for k := range s.In() {
+			in := &s.Inputs[k]
+			if k > 0 {
+				b = append(b, ',')
+			}
+			b = append(b, t.inputHead(k, in.Name)...)
+			b = appendJSONFloat6(b, in.Value)
+			b = append(b, t.inputTail(k, in.Unit)...)
+		}
+		b = append(b, `],"value":`...)
+		b = appendJSONFloat6(b, s.Value)
+		b = append(b, t.tailOf(s)...)
+	}
+	j.buf = b
+	j.endArray()
+}
+
+// stepText is the JSON text of one step of a trace without its numbers, for
+// the strings it was made from:
+//
+//	head:         {"quantity":…,"clause":…,"formula":…,"inputs":[
+//	input head:   {"name":…,"value":
+//	input tail:   ,"unit":…}
+//	tail:         ,"unit":…[,"combination":…][,"axis":…][,"note":…]}
+type stepText struct {
+	quantity, clause, formula string
+	head                      []byte
+
+	names, units [checks.MaxStepInputs]string
+	inHead       [checks.MaxStepInputs][]byte
+	inTail       [checks.MaxStepInputs][]byte
+
+	unit, comb, axis, note string
+	tail                   []byte
+}
+
+func (t *stepText) headOf(s *checks.Step) []byte {
+	if t.head == nil || s.Quantity != t.quantity || s.Clause != t.clause || s.Formula != t.formula {
+		t.quantity, t.clause, t.formula = s.Quantity, s.Clause, s.Formula
+		b := append(t.head[:0], `{"quantity":`...)
 		b = appendJSONString(b, s.Quantity)
 		b = append(b, `,"clause":`...)
 		b = appendJSONString(b, s.Clause)
 		b = append(b, `,"formula":`...)
 		b = appendJSONString(b, s.Formula)
-		b = append(b, `,"inputs":[`...)
-		for k, in := range s.In() {
-			if k > 0 {
-				b = append(b, ',')
-			}
-			b = append(b, `{"name":`...)
-			b = appendJSONString(b, in.Name)
-			b = append(b, `,"value":`...)
-			b = appendJSONFloat6(b, in.Value)
-			b = append(b, `,"unit":`...)
-			b = appendJSONString(b, in.Unit)
-			b = append(b, '}')
-		}
-		b = append(b, `],"value":`...)
-		b = appendJSONFloat6(b, s.Value)
-		b = append(b, `,"unit":`...)
+		t.head = append(b, `,"inputs":[`...)
+	}
+	return t.head
+}
+
+func (t *stepText) inputHead(k int, name string) []byte {
+	if t.inHead[k] == nil || name != t.names[k] {
+		t.names[k] = name
+		b := append(t.inHead[k][:0], `{"name":`...)
+		b = appendJSONString(b, name)
+		t.inHead[k] = append(b, `,"value":`...)
+	}
+	return t.inHead[k]
+}
+
+func (t *stepText) inputTail(k int, unit string) []byte {
+	if t.inTail[k] == nil || unit != t.units[k] {
+		t.units[k] = unit
+		b := append(t.inTail[k][:0], `,"unit":`...)
+		b = appendJSONString(b, unit)
+		t.inTail[k] = append(b, '}')
+	}
+	return t.inTail[k]
+}
+
+func (t *stepText) tailOf(s *checks.Step) []byte {
+	if t.tail == nil || s.Unit != t.unit || s.Combination != t.comb || s.Axis != t.axis || s.Note != t.note {
+		t.unit, t.comb, t.axis, t.note = s.Unit, s.Combination, s.Axis, s.Note
+		b := append(t.tail[:0], `,"unit":`...)
 		b = appendJSONString(b, s.Unit)
 		if s.Combination != "" {
 			b = append(b, `,"combination":`...)
@@ -395,10 +454,9 @@ func writeTrace(j *jsonWriter, steps []checks.Step) {
 			b = append(b, `,"note":`...)
 			b = appendJSONString(b, s.Note)
 		}
-		b = append(b, '}')
+		t.tail = append(b, '}')
 	}
-	j.buf = b
-	j.endArray()
+	return t.tail
 }
 
 func writeFrame(j *jsonWriter, f *checks.FrameResult) {

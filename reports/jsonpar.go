@@ -48,8 +48,9 @@ func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
 	jobs := make(chan *elemBatch, workers)
 	for range workers {
 		go func() {
+			var w jsonWriter // its step text cache serves every batch
 			for b := range jobs {
-				w := jsonWriter{buf: b.out[:0], comma: b.lo > 0}
+				w.buf, w.comma = b.out[:0], b.lo > 0
 				for k := range b.traces {
 					writeElement(&w, &r.Elements[b.lo+k], b.traces[k], full)
 				}

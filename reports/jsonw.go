@@ -21,6 +21,8 @@ type jsonWriter struct {
 	buf   []byte
 	comma bool
 	err   error
+
+	steps []stepText // text of the trace steps, by position (writeTrace)
 }
 
 func newJSONWriter(w io.Writer) *jsonWriter {
