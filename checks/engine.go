@@ -882,6 +882,52 @@ func (r *run) keepSteps(steps []Step) []Step {
 	return r.stepArena[l : l+n : l+n]
 }
 
+// TraceReplayer rebuilds element traces as Report.AppendTrace does, with
+// scratch state of its own, so that a writer can rebuild the traces of a
+// large report on several goroutines: each replayer serves one goroutine,
+// and the replayers of a report may run at the same time (not together
+// with Report.AppendTrace on that report).
+type TraceReplayer struct {
+	r run
+}
+
+// NewTraceReplayer returns a replayer of rep's element traces, or nil when
+// there is none to rebuild (rep was not made by Run, or with trace "none").
+// It shares the run's read-only state (model, inputs, sway values, results)
+// and copies none of it.
+func (rep *Report) NewTraceReplayer() *TraceReplayer {
+	src := rep.run
+	if src == nil || src.level == traceNone {
+		return nil
+	}
+	t := &TraceReplayer{r: *src}
+	r := &t.r
+	// Fresh scratch; the rule set makes its own per-member scratch again.
+	r.mc = MemberContext{}
+	for a := range r.ax {
+		r.ax[a] = AxisContext{Member: &r.mc, Setup: &r.mc.Axes[a], Axis: Axis(a), sink: &r.sink}
+	}
+	r.cc = CombinationContext{}
+	r.sink = reasonSink{}
+	r.tr = Tracer{}
+	r.scratch = CombinationResult{}
+	r.uniq, r.uidx, r.reasonArena, r.stepArena = nil, nil, nil, nil
+	return t
+}
+
+// AppendTrace appends element i's trace to dst and returns it, as
+// Report.AppendTrace does.
+func (t *TraceReplayer) AppendTrace(dst []Step, i int) []Step {
+	r := &t.r
+	if i < 0 || i >= len(r.setups) {
+		return dst
+	}
+	r.replay(i, r.level == traceFull, dst)
+	out := r.tr.steps
+	r.tr.reset(nil, false)
+	return out
+}
+
 // AppendTrace appends element i's trace at the run's trace level to dst and
 // returns it; with trace "none" it returns dst unchanged. It rebuilds the
 // steps from the run's stored state, so a writer can stream the trace of a
