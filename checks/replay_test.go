@@ -21,42 +21,44 @@ func TestTraceReplayer(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		for _, scope := range []string{"stability", "full"} {
-			for _, level := range []string{"full", "summary"} {
-				t.Run(name+"/"+scope+"/"+level, func(t *testing.T) {
-					opt := checks.DefaultOptions()
-					opt.Standard, opt.Scope, opt.Trace, opt.TraceOnDemand = name, scope, level, true
-					rep, err := checks.Run(m, rs, opt)
-					if err != nil {
-						t.Fatal(err)
-					}
-					want := make([][]checks.Step, len(rep.Elements))
-					for i := range want {
-						want[i] = rep.AppendTrace(nil, i)
-					}
-					const workers = 4
-					got := make([][]checks.Step, len(rep.Elements))
-					var wg sync.WaitGroup
-					for w := range workers {
-						rp := rep.NewTraceReplayer()
-						wg.Add(1)
-						go func() {
-							defer wg.Done()
-							var buf []checks.Step
-							for i := w; i < len(got); i += workers {
-								buf = rp.AppendTrace(buf[:0], i)
-								got[i] = append([]checks.Step(nil), buf...)
-							}
-						}()
-					}
-					wg.Wait()
-					for i := range want {
-						if len(want[i]) == 0 || !sameSteps(got[i], want[i]) {
-							t.Fatalf("element %d: replayed %d steps, AppendTrace %d, or they differ", i, len(got[i]), len(want[i]))
+		for _, c := range []struct{ scope, level, sway string }{
+			{"stability", "full", "storey"}, {"stability", "summary", "member"},
+			{"full", "full", "member"}, {"full", "summary", "storey"},
+		} {
+			t.Run(name+"/"+c.scope+"/"+c.level+"/"+c.sway, func(t *testing.T) {
+				opt := checks.DefaultOptions()
+				opt.Standard, opt.Scope, opt.Trace, opt.TraceOnDemand = name, c.scope, c.level, true
+				opt.SwayMethod = c.sway
+				rep, err := checks.Run(m, rs, opt)
+				if err != nil {
+					t.Fatal(err)
+				}
+				want := make([][]checks.Step, len(rep.Elements))
+				for i := range want {
+					want[i] = rep.AppendTrace(nil, i)
+				}
+				const workers = 4
+				got := make([][]checks.Step, len(rep.Elements))
+				var wg sync.WaitGroup
+				for w := range workers {
+					rp := rep.NewTraceReplayer()
+					wg.Add(1)
+					go func() {
+						defer wg.Done()
+						var buf []checks.Step
+						for i := w; i < len(got); i += workers {
+							buf = rp.AppendTrace(buf[:0], i)
+							got[i] = append([]checks.Step(nil), buf...)
 						}
+					}()
+				}
+				wg.Wait()
+				for i := range want {
+					if len(want[i]) == 0 || !sameSteps(got[i], want[i]) {
+						t.Fatalf("element %d: replayed %d steps, AppendTrace %d, or they differ", i, len(got[i]), len(want[i]))
 					}
-				})
-			}
+				}
+			})
 		}
 	}
 	opt := stabilityOptions()
