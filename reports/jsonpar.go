@@ -8,25 +8,27 @@ import (
 
 // The elements are most of a report (a traced member is some 15 KB of JSON)
 // and each is formatted on its own, so WriteJSON formats batches of them on
-// every core. The calling goroutine replays the traces (Report.AppendTrace is
-// not safe for concurrent use), hands each batch to a worker, and writes the
-// finished batches in member order, so that the output is byte for byte what
-// one goroutine writes. A few batches are in flight at a time, which bounds
-// the memory to some megabytes whatever the number of members.
+// every core. Each worker rebuilds the traces of its batches with a
+// replayer of its own (checks.TraceReplayer); the calling goroutine hands
+// out the batches and writes the finished ones in member order, so that the
+// output is byte for byte what one goroutine writes. A few batches are in
+// flight at a time, which bounds the memory to some megabytes whatever the
+// number of members.
 
 const (
 	// batchElements is the number of elements formatted as one batch.
 	batchElements = 16
 	// parallelMin is the smallest number of elements worth the workers.
 	parallelMin = 4 * batchElements
+	// stepsReserve is the room for the steps of one element that a worker
+	// keeps ahead of the replay (a summary trace has some 60 steps, a full
+	// one a few hundred).
+	stepsReserve = 256
 )
 
 // elemBatch is a run of elements [lo, hi) and, once formatted, their JSON.
 type elemBatch struct {
 	lo, hi int
-	steps  []checks.Step   // replayed steps of all the batch's elements
-	traces [][]checks.Step // each element's steps
-	ends   []int           // end of each element's steps in steps
 	out    []byte
 	done   chan struct{} // closed when out is ready
 }
@@ -49,10 +51,18 @@ func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
 	for range workers {
 		go func() {
 			var w jsonWriter // its step text cache serves every batch
+			rp := r.NewTraceReplayer()
+			var steps []checks.Step
 			for b := range jobs {
 				w.buf, w.comma = b.out[:0], b.lo > 0
-				for k := range b.traces {
-					writeElement(&w, &r.Elements[b.lo+k], b.traces[k], full)
+				for i := b.lo; i < b.hi; i++ {
+					trace := r.Elements[i].Trace
+					if trace == nil && rp != nil {
+						steps = reserveSteps(steps[:0], stepsReserve)
+						steps = rp.AppendTrace(steps, i)
+						trace = steps
+					}
+					writeElement(&w, &r.Elements[i], trace, full)
 				}
 				b.out = w.buf
 				close(b.done)
@@ -70,7 +80,7 @@ func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
 		j.writeChunks(b.out)
 		return b
 	}
-	for lo := 0; lo < n; lo += batchElements {
+	for lo := 0; lo < n && j.err == nil; lo += batchElements {
 		var b *elemBatch
 		if len(queue) == inflight {
 			b = emit()
@@ -78,7 +88,6 @@ func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
 			b = &elemBatch{out: make([]byte, 0, 256<<10)}
 		}
 		b.lo, b.hi = lo, min(lo+batchElements, n)
-		b.fill(r)
 		b.done = make(chan struct{})
 		queue = append(queue, b)
 		jobs <- b
@@ -88,47 +97,18 @@ func writeElements(j *jsonWriter, r *checks.Report, full bool, workers int) {
 	}
 }
 
-// fill gathers the traces of the batch's elements: the stored ones, or the
-// ones the report replays on demand.
-func (b *elemBatch) fill(r *checks.Report) {
-	b.steps, b.ends, b.traces = b.steps[:0], b.ends[:0], b.traces[:0]
-	for i := b.lo; i < b.hi; i++ {
-		if t := r.Elements[i].Trace; t != nil {
-			b.ends = append(b.ends, -1)
-			continue
-		}
-		b.reserve(stepsReserve)
-		b.steps = r.AppendTrace(b.steps, i)
-		b.ends = append(b.ends, len(b.steps))
+// reserveSteps returns steps with room for n more. New storage is written
+// (cleared) before the replay reads it: a fresh page that is read first
+// maps the shared zero page, and the write that follows costs a page copy
+// and a TLB flush on every core.
+func reserveSteps(steps []checks.Step, n int) []checks.Step {
+	if cap(steps)-len(steps) >= n {
+		return steps
 	}
-	start := 0
-	for k, end := range b.ends {
-		if end < 0 {
-			b.traces = append(b.traces, r.Elements[b.lo+k].Trace)
-			continue
-		}
-		b.traces = append(b.traces, b.steps[start:end:end])
-		start = end
-	}
-}
-
-// stepsReserve is the room for the steps of one element that fill keeps
-// ahead of the replay (a summary trace has some 60 steps, a full one a few
-// hundred).
-const stepsReserve = 256
-
-// reserve makes room for n more steps in b.steps. The new storage is
-// written (cleared) before the tracer reads it: a fresh page that is read
-// first maps the shared zero page, and the write that follows costs a page
-// copy and a TLB flush on every core.
-func (b *elemBatch) reserve(n int) {
-	if cap(b.steps)-len(b.steps) >= n {
-		return
-	}
-	s := make([]checks.Step, len(b.steps), 2*cap(b.steps)+n)
+	s := make([]checks.Step, len(steps), 2*cap(steps)+n)
 	clear(s[:cap(s)])
-	copy(s, b.steps)
-	b.steps = s
+	copy(s, steps)
+	return s
 }
 
 // writeChunks writes p, which follows the buffered bytes, in writes of at
