@@ -236,6 +236,10 @@ func skim(data []byte, c *chunk, lim *Limits) {
 	}
 	p := c.start
 	var e *perr
+	// The type of the previous statement: runs of one type are common
+	// (points, faces, property values).
+	var prevName []byte
+	var prevType uint16
 	for {
 		// Between statements: white space and comments. Fast path: one
 		// line break before the next '#'.
@@ -310,7 +314,11 @@ func skim(data []byte, c *chunk, lim *Limits) {
 			c.cplx = append(c.cplx, uint32(len(c.ids)))
 		} else {
 			k := q
-			if q < n && (isAlpha(data[q]) || data[q] == '!') {
+			if m := len(prevName); m > 0 && q+m < n && data[q+m] == '(' && string(data[q:q+m]) == string(prevName) {
+				// The previous statement's type again, followed by '(':
+				// the keyword scan would stop at the same place.
+				t, q = prevType, q+m
+			} else if q < n && (isAlpha(data[q]) || data[q] == '!') {
 				q++
 				for q < n && keyChar[data[q]] {
 					q++
@@ -320,6 +328,7 @@ func skim(data []byte, c *chunk, lim *Limits) {
 					c.err = &perr{off: k, id: id32, kind: ErrLimit, msg: "more than 65535 distinct entity types"}
 					return
 				}
+				prevName, prevType = data[k:q], t
 			} else {
 				c.err = endOr(data, q, id32, "expected an entity type name, found ")
 				return
