@@ -124,6 +124,14 @@ func (f *File) idAt(off int) uint32 {
 	return f.ids[s]
 }
 
+// plain marks the bytes that cannot start white space or a comment.
+var plain = func() (t [256]bool) {
+	for c := range t {
+		t[c] = c != ' ' && c != '\n' && c != '\r' && c != '\t' && c != '/'
+	}
+	return t
+}()
+
 // elemIter iterates over the elements of a list whose '(' is at off.
 type elemIter struct {
 	f       *File
@@ -143,10 +151,15 @@ func (it *elemIter) next() (v Value, ok bool, err error) {
 	}
 	f := it.f
 	data := f.data[:it.end]
-	p, e := skipSpace(data, it.p)
-	if e != nil {
-		it.done = true
-		return Value{}, false, f.fail(e)
+	// White space and comments are rare between values: the calls to
+	// skipSpace are made only when one may start here.
+	p := it.p
+	var e *perr
+	if p >= len(data) || !plain[data[p]] {
+		if p, e = skipSpace(data, p); e != nil {
+			it.done = true
+			return Value{}, false, f.fail(e)
+		}
 	}
 	if p < it.end && data[p] == ')' {
 		it.done = true
@@ -157,9 +170,12 @@ func (it *elemIter) next() (v Value, ok bool, err error) {
 			it.done = true
 			return Value{}, false, f.syntaxAt(p, "expected ',' or ')', found "+describe(data, p))
 		}
-		if p, e = skipSpace(data, p+1); e != nil {
-			it.done = true
-			return Value{}, false, f.fail(e)
+		p++
+		if p >= len(data) || !plain[data[p]] {
+			if p, e = skipSpace(data, p); e != nil {
+				it.done = true
+				return Value{}, false, f.fail(e)
+			}
 		}
 	}
 	it.started = true

@@ -55,9 +55,20 @@ func (in Instance) String() string {
 
 // open returns the offset of the '(' that opens the attribute list (or, for
 // a complex instance, the record list).
+//
+// Nearly every exporter writes "#N=TYPE(" without white space: then the
+// '(' is at a known distance from the '#' (the id's digits and the interned
+// type name's length) and is found without a scan.
 func (in Instance) open() int {
-	data := in.f.data
-	p := in.f.offset(in.s) + 1
+	f := in.f
+	data := f.data
+	off := f.offset(in.s)
+	if q := off + 1 + digits(f.ids[in.s]); q+1 < len(data) && data[q] == '=' && isAlpha(data[q+1]) {
+		if r := q + 1 + len(f.types[f.typ[in.s]]); r < len(data) && data[r] == '(' {
+			return r
+		}
+	}
+	p := off + 1
 	for p < len(data) && isDigit(data[p]) {
 		p++
 	}

@@ -28,6 +28,16 @@ func upper(s string) string {
 
 func isSpace(c byte) bool { return c == ' ' || c == '\n' || c == '\r' || c == '\t' }
 func isDigit(c byte) bool { return '0' <= c && c <= '9' }
+
+// digits returns the number of decimal digits of n.
+func digits(n uint32) int {
+	d := 1
+	for n >= 10 {
+		n /= 10
+		d++
+	}
+	return d
+}
 func isAlpha(c byte) bool { return 'A' <= c && c <= 'Z' || 'a' <= c && c <= 'z' }
 
 // isKeyChar reports whether c may continue a keyword.

@@ -228,3 +228,37 @@ func TestAppendNoAlloc(t *testing.T) {
 		t.Errorf("%v allocations per run, want 0", allocs)
 	}
 }
+
+// TestAttrsLayouts decodes the same instance written in every layout the
+// syntax allows around its id, '=' and type name: the attribute list is
+// found by the fast path for "#N=TYPE(" and by the scan otherwise.
+func TestAttrsLayouts(t *testing.T) {
+	for _, stmt := range []string{
+		"#7=IFCX(1,'a',#2);",
+		"#7 = IFCX (1,'a',#2);",
+		"#7=IFCX\n(1,'a',#2);",
+		"#7=/* c */IFCX(1,'a',#2);",
+		"#007=IFCX(1,'a',#2);",
+		"#7=ifcx(1,'a',#2);",
+		"#7=IFCX( 1 , 'a' ,#2 );",
+	} {
+		f := mustParse(t, doc("#2=IFCY();\n"+stmt+"\n"))
+		in, ok := f.Get(7)
+		if !ok {
+			t.Fatalf("%s: no #7", stmt)
+		}
+		vs, err := in.Attrs()
+		if err != nil || len(vs) != 3 {
+			t.Fatalf("%s: Attrs = %v, %v", stmt, vs, err)
+		}
+		if n, _ := vs[0].Int(); n != 1 {
+			t.Errorf("%s: attribute 0 = %d", stmt, n)
+		}
+		if s, _ := in.Attr(1).Text(); s != "a" {
+			t.Errorf("%s: attribute 1 = %q", stmt, s)
+		}
+		if r, _ := in.Attr(2).Ref(); r != 2 || in.NumAttrs() != 3 {
+			t.Errorf("%s: attribute 2 = #%d, %d attributes", stmt, r, in.NumAttrs())
+		}
+	}
+}
