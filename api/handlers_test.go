@@ -17,7 +17,7 @@ import (
 	"github.com/gin-gonic/gin"
 
 	"swaygate/api/store"
-	"swaygate/reports"
+	"swaygate/reports/schema"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata")
@@ -39,7 +39,7 @@ func TestCreateCheckGolden(t *testing.T) {
 		t.Errorf("Content-Type %q", ct)
 	}
 	body := rec.Body.Bytes()
-	if err := reports.ValidateJSON(body); err != nil {
+	if err := schema.ValidateReport(body); err != nil {
 		t.Errorf("the report does not match its schema: %v", err)
 	}
 	golden := filepath.Join("testdata", "post-report.golden.json")

@@ -32,9 +32,10 @@
 //
 // # Schema
 //
-// The JSON report is described by a JSON Schema (draft 2020-12) embedded in
-// the package (schema/report.schema.json); ValidateJSON checks a report against
-// it. The member listing has its own schema (schema/members.schema.json,
-// ValidateMembersJSON). Field names are a public interface: a change needs a
-// ReportVersion bump.
+// The JSON report is described by a JSON Schema (draft 2020-12),
+// schema/report.schema.json; the member listing has its own,
+// schema/members.schema.json. Package swaygate/reports/schema embeds both
+// and validates documents against them (schema.ValidateReport,
+// schema.ValidateMembers). Field names are a public interface: a change
+// needs a ReportVersion bump.
 package reports

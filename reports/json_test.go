@@ -12,6 +12,7 @@ import (
 
 	"swaygate/checks"
 	"swaygate/checks/standards"
+	"swaygate/reports/schema"
 )
 
 func writeJSON(t *testing.T, r *checks.Report, run Run) []byte {
@@ -53,7 +54,7 @@ func TestWriteJSONGolden(t *testing.T) {
 				tc.mod(r)
 			}
 			got := writeJSON(t, r, fxRun)
-			if err := ValidateJSON(got); err != nil {
+			if err := schema.ValidateReport(got); err != nil {
 				t.Fatalf("report does not match the schema: %v", err)
 			}
 			if !json.Valid(got) {
@@ -159,7 +160,7 @@ func TestWriteJSONNulls(t *testing.T) {
 	r.Elements[0].Member = &m
 	r.Elements[0].GoverningCombination = ""
 	got := writeJSON(t, r, fxRun)
-	if err := ValidateJSON(got); err != nil {
+	if err := schema.ValidateReport(got); err != nil {
 		t.Fatal(err)
 	}
 	for _, s := range []string{`"delta_s":null`, `"lambda_c":null`, `"n_star_kn":null`, `"length_mm":null`,
@@ -314,7 +315,7 @@ func TestWriteJSONParallel(t *testing.T) {
 			if traced := bytes.Count(one.Bytes(), []byte(`"trace":[{`)); name != "none" && traced < 200 {
 				t.Fatalf("%d elements with a trace", traced)
 			}
-			if err := ValidateJSON(many.Bytes()); err != nil {
+			if err := schema.ValidateReport(many.Bytes()); err != nil {
 				t.Fatal(err)
 			}
 		})
@@ -394,7 +395,7 @@ func TestWriteJSONStreams(t *testing.T) {
 	if cw.max > 2*flushAt {
 		t.Errorf("largest write %d bytes, want at most %d", cw.max, 2*flushAt)
 	}
-	if err := ValidateJSON(cw.Bytes()); err != nil {
+	if err := schema.ValidateReport(cw.Bytes()); err != nil {
 		t.Fatal(err)
 	}
 }

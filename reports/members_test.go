@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"encoding/json"
 	"testing"
+
+	"swaygate/reports/schema"
 )
 
 func TestWriteMembersJSON(t *testing.T) {
@@ -12,10 +14,10 @@ func TestWriteMembersJSON(t *testing.T) {
 		t.Fatal(err)
 	}
 	got := buf.Bytes()
-	if err := ValidateMembersJSON(got); err != nil {
+	if err := schema.ValidateMembers(got); err != nil {
 		t.Fatal(err)
 	}
-	if err := ValidateJSON(got); err == nil {
+	if err := schema.ValidateReport(got); err == nil {
 		t.Error("a member listing passed the report schema")
 	}
 	var doc struct {

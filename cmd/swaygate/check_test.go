@@ -13,7 +13,7 @@ import (
 	"testing"
 	"time"
 
-	"swaygate/reports"
+	"swaygate/reports/schema"
 )
 
 const demoDir = "../../testdata/demo"
@@ -59,7 +59,7 @@ func TestCheckDemoGolden(t *testing.T) {
 				t.Fatalf("exit %d (stderr %q), want %d: column C2 fails", code, stderr, exitGate)
 			}
 			if format == "json" {
-				if err := reports.ValidateJSON([]byte(out)); err != nil {
+				if err := schema.ValidateReport([]byte(out)); err != nil {
 					t.Fatalf("report does not validate: %v", err)
 				}
 			}

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"swaygate/reports"
+	"swaygate/reports/schema"
 )
 
 // frameReport is the part of the JSON report these tests read.
@@ -57,7 +57,7 @@ func frameJSON(t *testing.T, args ...string) frameReport {
 	if code == exitUsage {
 		t.Fatalf("check %q: exit 2: %s", args, stderr)
 	}
-	if err := reports.ValidateJSON([]byte(out)); err != nil {
+	if err := schema.ValidateReport([]byte(out)); err != nil {
 		t.Fatalf("the report does not match its schema: %v", err)
 	}
 	var r frameReport

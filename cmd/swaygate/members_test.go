@@ -7,7 +7,7 @@ import (
 	"strings"
 	"testing"
 
-	"swaygate/reports"
+	"swaygate/reports/schema"
 )
 
 // membersListing is the part of `members --format json` the tests read.
@@ -44,7 +44,7 @@ func membersJSON(t *testing.T, args ...string) membersListing {
 	if err != nil {
 		t.Fatalf("members %v: %v (%s)", args, err, errOut)
 	}
-	if err := reports.ValidateMembersJSON([]byte(out)); err != nil {
+	if err := schema.ValidateMembers([]byte(out)); err != nil {
 		t.Fatalf("members %v: output does not follow the schema: %v", args, err)
 	}
 	var l membersListing
