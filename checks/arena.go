@@ -13,6 +13,7 @@ type CheckArena struct {
 func (a *CheckArena) Reserve(n int) []CapacityCheck {
 	if cap(a.buf)-len(a.buf) < n {
 		a.buf = make([]CapacityCheck, 0, nextChunk(cap(a.buf), n))
+		clear(a.buf[:cap(a.buf)]) // written before it is read (see RunWith)
 	}
 	l := len(a.buf)
 	return a.buf[l : l+n : l+n]
