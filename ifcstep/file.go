@@ -92,6 +92,12 @@ type Options struct {
 	// a path that should not be shown (a temporary upload, say); default:
 	// the path.
 	Name string
+	// RefTypes are entity types (any case) whose instances' references are
+	// recorded while the file is indexed, for File.RefsOf: a reader that
+	// follows relationships of these types then need not decode them nor
+	// read their scattered bytes again. The skim of such an instance looks
+	// at two more kinds of byte; each reference costs 8 bytes.
+	RefTypes []string
 
 	chunkSize int // tests: split the data section into chunks of about this many bytes
 }
@@ -124,6 +130,13 @@ type File struct {
 	perm    []uint32 // slots sorted by id when ids are neither dense nor ascending
 	relexed int      // chunks skimmed again because their guessed start was wrong
 	mapped  bool     // data is a read-only memory mapping of the file (ReadFile)
+
+	// References recorded while indexing (Options.RefTypes, RefsOf): the
+	// recorded slots, ascending, and the first of each one's references.
+	refNames map[string]bool
+	refs     []Ref
+	refSlots []uint32
+	refStart []uint32 // len(refSlots)+1
 
 	byTypeOnce  sync.Once
 	byTypeStart []uint32 // CSR: slots of type t are byTypeSlots[byTypeStart[t]:byTypeStart[t+1]]

@@ -6,8 +6,9 @@ import (
 	"testing"
 )
 
-// FuzzParse parses arbitrary bytes serially and in parallel chunks (the two
-// must agree) and decodes every attribute of every instance. Run it with
+// FuzzParse parses arbitrary bytes serially and in parallel chunks, with and
+// without recording references (all must agree), and decodes every
+// attribute of every instance. Run it with
 //
 //	go test ./ifcstep -run '^$' -fuzz FuzzParse -fuzztime 60s
 func FuzzParse(f *testing.F) {
@@ -39,10 +40,22 @@ func FuzzParse(f *testing.F) {
 	}
 	f.Fuzz(func(t *testing.T, data []byte) {
 		lim := Limits{MaxDepth: 16, MaxStringLen: 4096, MaxInstances: 100000, MaxWarnings: 100}
-		f1, err1 := Parse(data, "fuzz.ifc", Options{Workers: 1, Limits: lim})
-		f2, err2 := Parse(data, "fuzz.ifc", Options{Workers: 3, Limits: lim, chunkSize: 5 + len(data)%97})
+		refTypes := []string{"X", "Y", "IFCX", "IFCY", "IFCLABEL", "IFCRELDEFINESBYPROPERTIES", "IFCRELAGGREGATES",
+			"IFCPROPERTYSET", "IFCCOLUMN", "IFCSHAPEREPRESENTATION"}
+		f1, err1 := Parse(data, "fuzz.ifc", Options{Workers: 1, Limits: lim, RefTypes: refTypes})
+		f2, err2 := Parse(data, "fuzz.ifc", Options{Workers: 3, Limits: lim, chunkSize: 5 + len(data)%97, RefTypes: refTypes})
 		if (err1 == nil) != (err2 == nil) || err1 != nil && err1.Error() != err2.Error() {
 			t.Fatalf("serial: %v\nchunked: %v", err1, err2)
+		}
+		// Recording references (skipListRefs) checks exactly what skipList does.
+		f0, err0 := Parse(data, "fuzz.ifc", Options{Workers: 1, Limits: lim})
+		if (err0 == nil) != (err1 == nil) || err0 != nil && err0.Error() != err1.Error() {
+			t.Fatalf("without RefTypes: %v\nwith: %v", err0, err1)
+		}
+		if err0 == nil {
+			if d := sameIndex(f0, f1); d != "" {
+				t.Fatalf("without and with RefTypes differ: %s", d)
+			}
 		}
 		if err1 != nil {
 			if _, ok := err1.(*Error); !ok {
@@ -66,6 +79,17 @@ func FuzzParse(f *testing.F) {
 		}
 		for _, typ := range f1.Types() {
 			_ = f1.ByType(typ)
+			var r1, r2 []Ref
+			f1.RefsOf(typ, func(in Instance, refs []Ref) { r1 = append(r1, refs...) })
+			f2.RefsOf(typ, func(in Instance, refs []Ref) { r2 = append(r2, refs...) })
+			if len(r1) != len(r2) {
+				t.Fatalf("RefsOf(%s): serial %d references, chunked %d", typ, len(r1), len(r2))
+			}
+			for k := range r1 {
+				if r1[k] != r2[k] {
+					t.Fatalf("RefsOf(%s): serial %v, chunked %v", typ, r1[k], r2[k])
+				}
+			}
 		}
 		_ = f1.TypeCounts()
 		_ = f1.Warnings()

@@ -223,6 +223,13 @@ type chunk struct {
 	tt     typeTable
 	cplx   []uint32 // chunk-local slots of complex instances
 	err    *perr
+
+	// References of the instances of Options.RefTypes (skipListRefs).
+	refNames map[string]bool // upper-case type names to record (shared)
+	want     []bool          // by chunk-local type: recorded
+	refs     []Ref
+	refInst  []uint32 // chunk-local slot of each recorded instance
+	refStart []uint32 // its first reference in refs
 }
 
 // skim indexes the statements of c from c.start until one starts at or
@@ -344,7 +351,12 @@ func skim(data []byte, c *chunk, lim *Limits) {
 				c.err = endOr(data, q, id32, "expected '(' after "+string(data[k:min(k+64, q)])+", found ")
 				return
 			}
-			if q, e = skipList(data, q, id32, 0, lim); e != nil {
+			if c.refNames != nil && c.wantsRefs(t) {
+				q, e = skipListRefs(data, q, id32, lim, c, len(c.ids))
+			} else {
+				q, e = skipList(data, q, id32, 0, lim)
+			}
+			if e != nil {
 				c.err = e
 				return
 			}
@@ -497,6 +509,7 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 		chunks[i].start = st
 	}
 	for i := range chunks {
+		chunks[i].refNames = f.refNames
 		chunks[i].stop = len(data) + 1
 		if i+1 < nchunks {
 			chunks[i].stop = chunks[i+1].start
@@ -529,7 +542,7 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 		c := &chunks[i]
 		if c.start != pos || !(nchunks > 1 && workers > 1) {
 			f.relexed += boolInt(c.start != pos && nchunks > 1 && workers > 1)
-			*c = chunk{start: pos, stop: c.stop}
+			*c = chunk{start: pos, stop: c.stop, refNames: f.refNames}
 			if c.stop < pos {
 				c.stop = pos
 			}
@@ -575,6 +588,16 @@ func (f *File) join(chunks []chunk) *perr {
 		offs = make([]uint32, 0, total)
 		typ = make([]uint16, 0, total)
 	}
+	if f.refNames != nil {
+		nr, ns := 0, 0
+		for i := range chunks {
+			nr += len(chunks[i].refs)
+			ns += len(chunks[i].refInst)
+		}
+		f.refs = make([]Ref, 0, nr)
+		f.refSlots = make([]uint32, 0, ns)
+		f.refStart = make([]uint32, 0, ns+1)
+	}
 	var hiSlots []uint32
 	hi := 0
 	next := uint32(0)
@@ -611,9 +634,18 @@ func (f *File) join(chunks []chunk) *perr {
 		for _, s := range c.cplx {
 			f.cplx = append(f.cplx, base+s)
 		}
+		for k, s := range c.refInst {
+			f.refSlots = append(f.refSlots, base+s)
+			f.refStart = append(f.refStart, uint32(len(f.refs))+c.refStart[k])
+		}
+		f.refs = append(f.refs, c.refs...)
 		c.ids, c.offs, c.typ = nil, nil, nil
+		c.refs, c.refInst, c.refStart = nil, nil, nil
 	}
 	f.ids, f.offs, f.typ, f.hiSlots = ids, offs, typ, hiSlots
+	if f.refNames != nil {
+		f.refStart = append(f.refStart, uint32(len(f.refs)))
+	}
 	return f.buildLookup()
 }
 

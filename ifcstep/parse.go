@@ -14,6 +14,12 @@ import (
 // accessors. A non-nil error is an *Error.
 func Parse(data []byte, name string, opt Options) (*File, error) {
 	f := &File{Name: name, data: data, lim: opt.Limits.withDefaults()}
+	if len(opt.RefTypes) > 0 {
+		f.refNames = make(map[string]bool, len(opt.RefTypes))
+		for _, t := range opt.RefTypes {
+			f.refNames[upper(t)] = true
+		}
+	}
 	if int64(len(data)) > f.lim.MaxFileSize {
 		return nil, &Error{File: name, Pos: Position{Line: 1, Column: 1}, Kind: ErrLimit,
 			Msg: "file of " + itoa(len(data)) + " bytes is larger than the limit of " + itoa(int(f.lim.MaxFileSize)) + " bytes"}
