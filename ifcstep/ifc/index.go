@@ -136,6 +136,65 @@ func scan[T any](x *extractor, ins []ifcstep.Instance, fn func(in ifcstep.Instan
 	return out
 }
 
+// RefTypes returns the relationship types whose references Extract reads
+// as the reader recorded them while indexing (ifcstep.Options.RefTypes),
+// when it did, instead of decoding the relationships: the most numerous
+// ones in a large model, each read once by a scan over all of its kind.
+func RefTypes() []string {
+	return []string{"IFCRELDEFINESBYPROPERTIES", "IFCRELCONNECTSSTRUCTURALACTIVITY", "IFCRELASSIGNSTOPRODUCT"}
+}
+
+// relation is a relationship instance as a scan reads it: its references
+// as recorded while indexing (recorded), or decoded.
+type relation struct {
+	in       ifcstep.Instance
+	refs     []ifcstep.Ref
+	recorded bool
+}
+
+// ref returns attribute attr when it is a reference.
+func (r relation) ref(attr int) (uint32, bool) {
+	if !r.recorded {
+		return r.in.Attr(attr).Ref()
+	}
+	for _, x := range r.refs {
+		if int(x.Attr) == attr && x.Depth == 1 {
+			return x.ID, true
+		}
+	}
+	return 0, false
+}
+
+// each calls fn for attribute attr when it is a reference, or for each
+// reference in its list, as forRefs does.
+func (r relation) each(attr int, fn func(id uint32)) {
+	if !r.recorded {
+		forRefs(r.in.Attr(attr), fn)
+		return
+	}
+	for _, x := range r.refs {
+		if int(x.Attr) == attr && x.Depth <= 2 && !x.Typed {
+			fn(x.ID)
+		}
+	}
+}
+
+// relsOf calls fn on every relationship of type typ and returns the hits it
+// appends, in file order: from the references the reader recorded when it
+// did (one cheap pass), else decoded on every worker (scan). fn may only
+// read shared state.
+func relsOf[T any](x *extractor, typ string, fn func(rel relation, hits []T) []T) []T {
+	var hits []T
+	if x.f.RefsOf(typ, func(in ifcstep.Instance, refs []ifcstep.Ref) {
+		hits = fn(relation{in: in, refs: refs, recorded: true}, hits)
+	}) {
+		return hits
+	}
+	return scan(x, x.f.ByType(typ), func(in ifcstep.Instance, hits []T) []T {
+		return fn(relation{in: in}, hits)
+	})
+}
+
 func forRefsSlow(v ifcstep.Value, fn func(id uint32)) {
 	list, err := v.List()
 	if err != nil {
@@ -346,14 +405,14 @@ func (x *extractor) buildIndex(cs []candidate) {
 	// Property sets and quantities (in a large model most relationships are
 	// of other elements: the scan runs on every worker).
 	type objSet struct{ obj, set uint32 }
-	for _, h := range scan(x, x.f.ByType("IFCRELDEFINESBYPROPERTIES"), func(rel ifcstep.Instance, hits []objSet) []objSet {
+	for _, h := range relsOf(x, "IFCRELDEFINESBYPROPERTIES", func(rel relation, hits []objSet) []objSet {
 		var pset uint32
-		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
+		rel.each(pRelatedObjects, func(id uint32) {
 			if !related.has(id) {
 				return
 			}
 			if pset == 0 {
-				if p, ok := rel.Attr(pRelatingDef).Ref(); ok {
+				if p, ok := rel.ref(pRelatingDef); ok {
 					pset = p
 				}
 			}
@@ -459,30 +518,35 @@ func (x *extractor) buildIndex(cs []candidate) {
 		}
 		cs[i].links = append(cs[i].links, m)
 	}
-	for _, rel := range x.f.ByType("IFCRELASSIGNSTOPRODUCT") {
-		target, ok := rel.Attr(pAssignsTarget).Ref()
+	type candLink struct {
+		cand int
+		m    uint32
+	}
+	for _, l := range relsOf(x, "IFCRELASSIGNSTOPRODUCT", func(rel relation, links []candLink) []candLink {
+		target, ok := rel.ref(pAssignsTarget)
 		if !ok {
-			continue
+			return links
 		}
 		if i, isCand := pos[target]; isCand {
-			forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
+			rel.each(pRelatedObjects, func(id uint32) {
 				if isMember(id) {
-					link(i, id)
+					links = append(links, candLink{i, id})
 				}
 			})
-			continue
+			return links
 		}
-		var hits []int
-		forRefs(rel.Attr(pRelatedObjects), func(id uint32) {
+		n := len(links)
+		rel.each(pRelatedObjects, func(id uint32) {
 			if i, ok := pos[id]; ok {
-				hits = append(hits, i)
+				links = append(links, candLink{i, target})
 			}
 		})
-		if len(hits) > 0 && isMember(target) {
-			for _, i := range hits {
-				link(i, target)
-			}
+		if len(links) > n && !isMember(target) {
+			links = links[:n]
 		}
+		return links
+	}) {
+		link(l.cand, l.m)
 	}
 	for _, rel := range x.f.ByType("IFCRELCONNECTSSTRUCTURALELEMENT") {
 		el, ok1 := rel.Attr(pRelating).Ref()
@@ -504,14 +568,12 @@ func (x *extractor) buildIndex(cs []candidate) {
 	}
 	reactions := map[uint32]bool{}
 	if len(members) > 0 {
-		for _, h := range scan(x, x.f.ByType("IFCRELCONNECTSSTRUCTURALACTIVITY"), func(rel ifcstep.Instance, hits []objSet) []objSet {
-			var ab [6]ifcstep.Value
-			vs := attrsOf(rel, ab[:])
-			m, ok := at(vs, pRelating).Ref()
+		for _, h := range relsOf(x, "IFCRELCONNECTSSTRUCTURALACTIVITY", func(rel relation, hits []objSet) []objSet {
+			m, ok := rel.ref(pRelating)
 			if !ok || !members[m] {
 				return hits
 			}
-			r, ok := at(vs, pRelated).Ref()
+			r, ok := rel.ref(pRelated)
 			if !ok || x.typeOf(r) != "IFCSTRUCTURALCURVEREACTION" {
 				return hits
 			}

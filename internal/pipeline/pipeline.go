@@ -148,7 +148,9 @@ func load(ctx context.Context, req Request) (ld *Loaded, wait func() error, err 
 		<-hc
 		return nil, nil, err
 	}
-	ropt := ifcstep.Options{Limits: req.Limits}
+	// The extraction reads its most numerous relationships from the
+	// references the reader records while indexing.
+	ropt := ifcstep.Options{Limits: req.Limits, RefTypes: ifc.RefTypes()}
 	if ropt.Limits == (ifcstep.Limits{}) {
 		ropt.Limits = ifcstep.DefaultLimits()
 	}
