@@ -3,6 +3,7 @@ package reports
 import (
 	"fmt"
 	"io"
+	"math"
 	"time"
 
 	"swaygate/checks"
@@ -373,15 +374,24 @@ func writeTrace(j *jsonWriter, steps []checks.Step) {
 				b = append(b, ',')
 			}
 			b = append(b, t.inputHead(k, in.Name)...)
-			b = appendJSONFloat6(b, in.Value)
+			b = j.traceNumber(b, in.Value)
 			b = append(b, t.inputTail(k, in.Unit)...)
 		}
 		b = append(b, `],"value":`...)
-		b = appendJSONFloat6(b, s.Value)
+		b = j.traceNumber(b, s.Value)
 		b = append(b, t.tailOf(s)...)
 	}
 	j.buf = b
 	j.endArray()
+}
+
+// traceNumber appends a trace number (appendJSONFloat6), through the number
+// cache unless it is an integer or null.
+func (j *jsonWriter) traceNumber(b []byte, v float64) []byte {
+	if v == math.Trunc(v) && math.Abs(v) < 1e6 || math.IsNaN(v) {
+		return appendJSONFloat6(b, v)
+	}
+	return j.cachedNumber(b, v, true)
 }
 
 // stepText is the JSON text of one step of a trace without its numbers, for

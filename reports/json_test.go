@@ -322,6 +322,33 @@ func TestWriteJSONParallel(t *testing.T) {
 	}
 }
 
+// TestNumberCache writes numbers that repeat, collide and come in both
+// formats through one writer: every text equals a fresh formatting.
+func TestNumberCache(t *testing.T) {
+	rng := rand.New(rand.NewPCG(2, 2))
+	pool := make([]float64, 3000) // more values than slots: collisions
+	for i := range pool {
+		pool[i] = rng.NormFloat64() * math.Pow(10, float64(rng.IntN(12)-4))
+	}
+	pool = append(pool, 0, math.NaN(), math.Inf(1), 42, -7.5, 1e300, 5e-324)
+	var j jsonWriter
+	for range 20000 {
+		v := pool[rng.IntN(len(pool))]
+		j.buf = j.buf[:0]
+		if rng.IntN(2) == 0 {
+			j.comma = false
+			j.num(v)
+			if want := string(appendJSONFloat(nil, v)); string(j.buf) != want {
+				t.Fatalf("%v: %s, want %s", v, j.buf, want)
+			}
+		} else {
+			if got, want := string(j.traceNumber(nil, v)), string(appendJSONFloat6(nil, v)); got != want {
+				t.Fatalf("trace %v: %s, want %s", v, got, want)
+			}
+		}
+	}
+}
+
 func TestWriteJSONRejects(t *testing.T) {
 	dup := fxReport(false)
 	dup.Elements[3].Member = dup.Elements[1].Member

@@ -22,7 +22,56 @@ type jsonWriter struct {
 	comma bool
 	err   error
 
-	steps []stepText // text of the trace steps, by position (writeTrace)
+	steps []stepText   // text of the trace steps, by position (writeTrace)
+	nums  *numberCache // text of recent numbers; nil until the first
+}
+
+// numberCache remembers the text of recently written numbers, by their
+// bits: members that share a profile, a length or a material repeat most
+// of their section, buckling and capacity values, and copying a text is
+// several times cheaper than formatting the number again (the shortest
+// round-trip form costs some 60 ns). Direct-mapped; a slot holds the text of
+// one value written as an element field (shortest) or as a trace number
+// (six digits).
+type numberCache struct {
+	key  [numberSlots]uint64 // the value's bits
+	six  [numberSlots]bool   // the text is the trace format's
+	n    [numberSlots]uint8  // text length, 0 = empty
+	text [numberSlots][numberText]byte
+}
+
+const (
+	numberBits  = 10
+	numberSlots = 1 << numberBits
+	numberText  = 24
+)
+
+// cachedNumber appends the text of v made by format (fmt6 selects the
+// trace format), from the cache when it holds it.
+func (j *jsonWriter) cachedNumber(b []byte, v float64, fmt6 bool) []byte {
+	if j.nums == nil {
+		j.nums = new(numberCache)
+	}
+	c := j.nums
+	k := math.Float64bits(v)
+	h := (k * 0x9E3779B97F4A7C15) >> (64 - numberBits)
+	if fmt6 {
+		h ^= 1 // the two formats of one value in neighbouring slots
+	}
+	if n := c.n[h]; n != 0 && c.key[h] == k && c.six[h] == fmt6 {
+		return append(b, c.text[h][:n]...)
+	}
+	start := len(b)
+	if fmt6 {
+		b = appendJSONFloat6(b, v)
+	} else {
+		b = appendJSONFloat(b, v)
+	}
+	if n := len(b) - start; n <= numberText {
+		c.key[h], c.six[h], c.n[h] = k, fmt6, uint8(n)
+		copy(c.text[h][:], b[start:])
+	}
+	return b
 }
 
 func newJSONWriter(w io.Writer) *jsonWriter {
@@ -96,7 +145,11 @@ func (j *jsonWriter) strOrNull(s string) {
 // num writes f, or null when f is NaN or infinite.
 func (j *jsonWriter) num(f float64) {
 	j.sep()
-	j.buf = appendJSONFloat(j.buf, f)
+	if f == math.Trunc(f) && math.Abs(f) < 1e15 || math.IsNaN(f) {
+		j.buf = appendJSONFloat(j.buf, f) // integers and null: cheap already
+		return
+	}
+	j.buf = j.cachedNumber(j.buf, f, false)
 }
 
 // numPos writes f, or null when f is not a positive number (the input types
