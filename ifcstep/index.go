@@ -561,15 +561,15 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 	if !endsec {
 		return 0, &perr{off: len(data), kind: ErrTruncated, msg: "file ends inside the DATA section (no ENDSEC)"}
 	}
-	if e := f.join(chunks[:used]); e != nil {
+	if e := f.join(chunks[:used], workers); e != nil {
 		return 0, e
 	}
 	return pos, nil
 }
 
 // join merges the chunks' results into the file's index and builds the id
-// lookup.
-func (f *File) join(chunks []chunk) *perr {
+// lookup. The chunks are copied into place on up to workers goroutines.
+func (f *File) join(chunks []chunk, workers int) *perr {
 	total := 0
 	for i := range chunks {
 		total += len(chunks[i].ids)
@@ -577,16 +577,84 @@ func (f *File) join(chunks []chunk) *perr {
 	if total > f.lim.MaxInstances {
 		return &perr{off: chunks[len(chunks)-1].end, kind: ErrLimit, msg: "more instances than the limit of " + itoa(f.lim.MaxInstances)}
 	}
+	// The global type table, and each chunk's map into it.
 	f.typeIdx = make(map[string]uint16)
-	remap := make([]uint16, 0, 1024)
+	remaps := make([][]uint16, len(chunks))
+	bases := make([]uint32, len(chunks))
+	next := uint32(0)
+	for i := range chunks {
+		c := &chunks[i]
+		remap := make([]uint16, 0, len(c.tt.names))
+		for _, name := range c.tt.names {
+			u := upper(string(name))
+			g, ok := f.typeIdx[u]
+			if !ok {
+				g = uint16(len(f.types))
+				f.types = append(f.types, u)
+				f.typeIdx[u] = g
+			}
+			remap = append(remap, g)
+		}
+		remaps[i], bases[i] = remap, next
+		next += uint32(len(c.ids))
+	}
+
+	// Files over 4 GiB: the first slot of each further 4 GiB (from the
+	// chunk-relative offsets, before place makes them absolute).
+	var hiSlots []uint32
+	if len(f.data) > 1<<32 {
+		hi := 0
+		for i := range chunks {
+			c := &chunks[i]
+			for k := range c.ids {
+				for abs := c.start + int(c.offs[k]); abs>>32 > hi; hi++ {
+					hiSlots = append(hiSlots, bases[i]+uint32(k))
+				}
+			}
+		}
+	}
+
 	var ids, offs []uint32
 	var typ []uint16
 	if len(chunks) == 1 {
 		ids, offs, typ = chunks[0].ids, chunks[0].offs, chunks[0].typ
 	} else {
-		ids = make([]uint32, 0, total)
-		offs = make([]uint32, 0, total)
-		typ = make([]uint16, 0, total)
+		ids = make([]uint32, total)
+		offs = make([]uint32, total)
+		typ = make([]uint16, total)
+	}
+	// place copies chunk i into the index: global types, and offsets made
+	// absolute (their low 32 bits; hiSlots holds the rest).
+	place := func(i int) {
+		c := &chunks[i]
+		base, remap := bases[i], remaps[i]
+		n := len(c.ids)
+		id, off, ty := ids[base:base+uint32(n)], offs[base:base+uint32(n)], typ[base:base+uint32(n)]
+		if len(chunks) > 1 {
+			copy(id, c.ids)
+		}
+		for k := range n {
+			ty[k] = remap[c.typ[k]]
+			off[k] = uint32(c.start + int(c.offs[k]))
+		}
+	}
+	if len(chunks) > 1 && workers > 1 {
+		var at atomic.Int32
+		var wg sync.WaitGroup
+		for range min(workers, len(chunks)) {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				for i := int(at.Add(1)) - 1; i < len(chunks); i = int(at.Add(1)) - 1 {
+					place(i)
+				}
+			}()
+		}
+		wg.Wait()
+	} else {
+		for i := range chunks {
+			place(i)
+		}
 	}
 	if f.refNames != nil {
 		nr, ns := 0, 0
@@ -598,39 +666,9 @@ func (f *File) join(chunks []chunk) *perr {
 		f.refSlots = make([]uint32, 0, ns)
 		f.refStart = make([]uint32, 0, ns+1)
 	}
-	var hiSlots []uint32
-	hi := 0
-	next := uint32(0)
 	for i := range chunks {
 		c := &chunks[i]
-		remap = remap[:0]
-		for _, name := range c.tt.names {
-			u := upper(string(name))
-			g, ok := f.typeIdx[u]
-			if !ok {
-				g = uint16(len(f.types))
-				f.types = append(f.types, u)
-				f.typeIdx[u] = g
-			}
-			remap = append(remap, g)
-		}
-		base := next
-		next += uint32(len(c.ids))
-		if len(chunks) > 1 {
-			ids = append(ids, c.ids...)
-			offs = append(offs, c.offs...)
-			typ = append(typ, c.typ...)
-		}
-		for k := range c.ids {
-			s := base + uint32(k)
-			typ[s] = remap[typ[s]]
-			abs := c.start + int(offs[s])
-			for abs>>32 > hi {
-				hiSlots = append(hiSlots, s)
-				hi++
-			}
-			offs[s] = uint32(abs)
-		}
+		base := bases[i]
 		for _, s := range c.cplx {
 			f.cplx = append(f.cplx, base+s)
 		}
