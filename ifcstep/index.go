@@ -3,6 +3,7 @@ package ifcstep
 import (
 	"bytes"
 	"encoding/binary"
+	"os"
 	"slices"
 	"sync"
 	"sync/atomic"
@@ -474,9 +475,30 @@ func guessStart(data []byte, b, limit int) int {
 }
 
 const (
-	minChunk = 1 << 20 // skim smaller files in one chunk
-	maxChunk = 1 << 30 // chunk-relative offsets must fit in 32 bits
+	minChunk    = 1 << 20 // skim smaller files in one chunk
+	maxChunk    = 1 << 30 // chunk-relative offsets must fit in 32 bits
+	mappedChunk = 8 << 20 // the most of a large mapped file a worker keeps resident while indexing
+	// dropMin is the size from which a mapped file's pages are dropped as
+	// the index goes: below it the file stays resident (populated at once,
+	// cheaper than faulting it in and dropping it).
+	dropMin = 64 << 20
 )
+
+// dropSkimmed drops the pages of a mapped file that lie wholly within the
+// part chunk c has skimmed: the index needs the bytes once, and a large
+// model's mapping would otherwise stay resident in full (ReadFile maps it
+// without reading it ahead; the skim faults it in as it goes).
+func (f *File) dropSkimmed(c *chunk) {
+	if !f.mapped || len(f.data) < dropMin {
+		return
+	}
+	page := os.Getpagesize()
+	lo := (c.start + page - 1) / page * page
+	hi := min(c.end, len(f.data)) / page * page
+	if lo < hi {
+		dropPages(f.data[lo:hi])
+	}
+}
 
 // indexData indexes the data section that starts at start. It returns the
 // offset of the section's ENDSEC.
@@ -489,6 +511,11 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 		nchunks = min(max(1, size/chunkSize), 64)
 	case workers > 1 && size >= 2*minChunk:
 		nchunks = min(4*workers, size/minChunk)
+	}
+	if f.mapped && chunkSize == 0 && len(f.data) >= dropMin {
+		// A mapped file's pages are dropped chunk by chunk once skimmed
+		// (dropSkimmed): smaller chunks keep fewer of them resident.
+		nchunks = max(nchunks, size/mappedChunk)
 	}
 	nchunks = max(nchunks, (size+maxChunk-1)/maxChunk)
 	starts := make([]int, 1, nchunks)
@@ -529,6 +556,7 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 						return
 					}
 					skim(data, &chunks[i], lim)
+					f.dropSkimmed(&chunks[i])
 				}
 			}()
 		}
@@ -547,6 +575,7 @@ func (f *File) indexData(start, workers, chunkSize int) (int, *perr) {
 				c.stop = pos
 			}
 			skim(data, c, lim)
+			f.dropSkimmed(c)
 		}
 		used = i + 1
 		if c.err != nil {

@@ -14,12 +14,19 @@ import (
 const mmapMin = 4 << 20
 
 // mapFile maps fh read-only. ok is false when the file cannot be mapped; the
-// caller then reads it.
+// caller then reads it. A file below dropMin is populated at once (faster
+// than faulting it in); a larger one is not: the index faults its pages in
+// chunk by chunk and drops them again (dropSkimmed), so that the whole file
+// is never resident at once.
 func mapFile(fh *os.File, size int64) (data []byte, ok bool) {
 	if size < mmapMin || int64(int(size)) != size {
 		return nil, false
 	}
-	data, err := syscall.Mmap(int(fh.Fd()), 0, int(size), syscall.PROT_READ, syscall.MAP_SHARED|syscall.MAP_POPULATE)
+	flags := syscall.MAP_SHARED
+	if size < dropMin {
+		flags |= syscall.MAP_POPULATE
+	}
+	data, err := syscall.Mmap(int(fh.Fd()), 0, int(size), syscall.PROT_READ, flags)
 	if err != nil {
 		return nil, false
 	}

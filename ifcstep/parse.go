@@ -13,7 +13,13 @@ import (
 // pass. Attribute values are decoded lazily, by Instance.Attrs and the Value
 // accessors. A non-nil error is an *Error.
 func Parse(data []byte, name string, opt Options) (*File, error) {
-	f := &File{Name: name, data: data, lim: opt.Limits.withDefaults()}
+	return parse(data, name, opt, false)
+}
+
+// parse is Parse; mapped tells that data is a memory mapping of the file,
+// whose pages the index drops as it goes.
+func parse(data []byte, name string, opt Options, mapped bool) (*File, error) {
+	f := &File{Name: name, data: data, lim: opt.Limits.withDefaults(), mapped: mapped}
 	if len(opt.RefTypes) > 0 {
 		f.refNames = make(map[string]bool, len(opt.RefTypes))
 		for _, t := range opt.RefTypes {

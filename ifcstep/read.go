@@ -21,7 +21,10 @@ import (
 // A large plain file is memory-mapped (on Linux) rather than read: it must
 // not be truncated or rewritten while the File is in use, and the mapping is
 // released once the File, its Instances and Values are no longer reachable.
-// Slices returned by Value.Raw are valid only while one of those is.
+// Slices returned by Value.Raw are valid only while one of those is. The
+// pages of a mapped file of 64 MiB or more do not stay resident: the index
+// drops them chunk by chunk once skimmed, and later reads map what they
+// touch again.
 func ReadFile(path string, opt Options) (*File, error) {
 	lim := opt.Limits.withDefaults()
 	name := path
@@ -59,12 +62,11 @@ func ReadFile(path string, opt Options) (*File, error) {
 		return nil, limitErr(name, lim.MaxFileSize)
 	}
 	if data, ok := mapFile(fh, st.Size()); ok {
-		f, err := Parse(data, name, opt)
+		f, err := parse(data, name, opt, true)
 		if err != nil {
 			unmap(data)
 			return nil, err
 		}
-		f.mapped = true
 		unmapWhenUnreachable(f, data)
 		return f, nil
 	}

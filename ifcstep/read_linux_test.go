@@ -55,22 +55,9 @@ func TestDropPages(t *testing.T) {
 		s, _ := in.Attr(2).Text()
 		before = append(before, s)
 	}
-	rss := func() int {
-		b, err := os.ReadFile("/proc/self/status")
-		if err != nil {
-			return -1
-		}
-		for _, line := range strings.Split(string(b), "\n") {
-			if v, ok := strings.CutPrefix(line, "RssFile:"); ok {
-				n, _ := strconv.Atoi(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(v), "kB")))
-				return n
-			}
-		}
-		return -1
-	}
-	r0 := rss()
+	r0 := rssFileKB(t)
 	f.DropPages()
-	if r1 := rss(); r0 > 0 && r0-r1 < 6<<10 {
+	if r1 := rssFileKB(t); r0-r1 < 6<<10 {
 		t.Errorf("RssFile %d kB before DropPages, %d kB after: want at least 6 MiB less", r0, r1)
 	}
 	for k, in := range f.ByType("IFCBUILDINGELEMENTPROXY")[:64] {
@@ -79,4 +66,65 @@ func TestDropPages(t *testing.T) {
 		}
 	}
 	mustParse(t, doc("#1=IFCX(1);\n")).DropPages() // data in memory: nothing to do
+}
+
+// A mapped file from dropMin up is not kept resident by the index: its pages
+// are dropped chunk by chunk once skimmed, and the File reads the same as a
+// parse of the bytes in memory.
+func TestReadFileDropsWhileIndexing(t *testing.T) {
+	if testing.Short() {
+		t.Skip("writes a 70 MiB model")
+	}
+	path := filepath.Join(t.TempDir(), "large.ifc")
+	fh, err := os.Create(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := ifcgen.Write(fh, ifcgen.Options{Columns: 200, Storeys: 4, TargetBytes: 70 << 20}); err != nil {
+		t.Fatal(err)
+	}
+	fh.Close()
+	before := rssFileKB(t)
+	f, err := ReadFile(path, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if grew := rssFileKB(t) - before; grew > 35<<10 {
+		t.Errorf("RssFile grew by %d kB while indexing a %d kB file: want less than half of it", grew, f.Size()>>10)
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := Parse(data, path, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := sameIndex(want, f); d != "" {
+		t.Fatal(d)
+	}
+	for k, in := range f.ByType("IFCCOLUMN") {
+		w := want.ByType("IFCCOLUMN")[k]
+		a, _ := in.Attr(0).Text()
+		b, _ := w.Attr(0).Text()
+		if a != b || a == "" {
+			t.Fatalf("%s: GlobalId %q, in memory %q", in, a, b)
+		}
+	}
+}
+
+// rssFileKB is the process's resident file-backed memory, in kB.
+func rssFileKB(t *testing.T) int {
+	b, err := os.ReadFile("/proc/self/status")
+	if err != nil {
+		t.Skip(err)
+	}
+	for _, line := range strings.Split(string(b), "\n") {
+		if v, ok := strings.CutPrefix(line, "RssFile:"); ok {
+			n, _ := strconv.Atoi(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(v), "kB")))
+			return n
+		}
+	}
+	t.Skip("no RssFile")
+	return 0
 }
