@@ -5,10 +5,28 @@ package main
 import (
 	"fmt"
 	"os"
+	"runtime/debug"
 )
 
 func main() {
+	tuneGC(os.Args[1:])
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
+
+// tuneGC sets the collector for the commands that read one model and exit
+// (check, members, scan): GOGC 200 instead of 100, unless GOGC is set in the
+// environment. Half as many collections cost little memory there: a whole
+// check of the 32 MB benchmark model runs about 8 % faster with the same
+// peak RSS; one of the 316 MB model as fast, with a peak RSS of 0.84x the
+// file instead of 0.80x. The service keeps the default.
+func tuneGC(args []string) {
+	if len(args) == 0 || os.Getenv("GOGC") != "" {
+		return
+	}
+	switch args[0] {
+	case "check", "members", "scan":
+		debug.SetGCPercent(200)
+	}
 }
 
 // Exit statuses.
