@@ -66,7 +66,8 @@
 // are fixed structs recorded through a Tracer without fmt or maps. A stored
 // step costs some 450 bytes, so for large models set Options.TraceOnDemand and
 // let the writer rebuild each element's steps with Report.AppendTrace into
-// one reused buffer.
+// one reused buffer, or on several goroutines with one TraceReplayer each
+// (Report.NewTraceReplayer).
 //
 // # Units
 //
