@@ -16,6 +16,14 @@
 // calculation, whose steps are converted when their unit is one of the known
 // SI spellings).
 //
+// # Numbers
+//
+// JSON numbers are the shortest text that reads back as the same float64,
+// except in the trace: step values and inputs are rounded to 6 significant
+// digits (1234.5678 -> 1234.57), which a hand calculation never needs more
+// of. Integers are written without a fraction; exponents only below 1e-6 and
+// from 1e21 up.
+//
 // # Nulls
 //
 // A value the engine could not compute (NaN in a checks.Num, or zero where the
