@@ -119,7 +119,7 @@ func parseCheckParams(q url.Values) (checkParams, error) {
 	if err := oneOf("trace", p.trace, "full", "summary", "none"); err != nil {
 		return p, err
 	}
-	if err := oneOf("gate", p.gate, reports.GateFail, reports.GateNeedsAnalysis); err != nil {
+	if err := oneOf("gate", p.gate, reports.GateFail, reports.GateNeedsAnalysis, reports.GateNone); err != nil {
 		return p, err
 	}
 	if err := oneOf("units", p.units, reports.UnitsSI, reports.UnitsUS); err != nil {

@@ -14,6 +14,7 @@ const ReportVersion = "1"
 const (
 	GateFail          = "fail"           // the gate holds when no member fails
 	GateNeedsAnalysis = "needs-analysis" // ... when no member fails or needs analysis
+	GateNone          = "none"           // always holds: report only (exploring a model)
 )
 
 // Units for the text and HTML reports.
@@ -46,7 +47,7 @@ type ModelInfo struct {
 
 // Gate is a gate policy and whether the run met it.
 type Gate struct {
-	Policy string // GateFail or GateNeedsAnalysis
+	Policy string // GateFail, GateNeedsAnalysis or GateNone
 	Passed bool
 }
 
@@ -58,8 +59,10 @@ func NewGate(policy string, s checks.Summary) (Gate, error) {
 		return Gate{Policy: GateFail, Passed: s.Fail == 0}, nil
 	case GateNeedsAnalysis:
 		return Gate{Policy: GateNeedsAnalysis, Passed: s.Fail == 0 && s.NeedsAnalysis == 0}, nil
+	case GateNone:
+		return Gate{Policy: GateNone, Passed: true}, nil
 	}
-	return Gate{}, fmt.Errorf("reports: unknown gate policy %q (want %q or %q)", policy, GateFail, GateNeedsAnalysis)
+	return Gate{}, fmt.Errorf("reports: unknown gate policy %q (want %q, %q or %q)", policy, GateFail, GateNeedsAnalysis, GateNone)
 }
 
 // policy returns the gate policy, GateFail when unset.

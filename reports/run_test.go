@@ -22,7 +22,8 @@ func TestNewGate(t *testing.T) {
 		{"needs-analysis", checks.Summary{Members: 3, Pass: 2, Fail: 1}, Gate{GateNeedsAnalysis, false}, ""},
 		{"needs-analysis", checks.Summary{Members: 3, Pass: 3}, Gate{GateNeedsAnalysis, true}, ""},
 		{"needs-analysis", checks.Summary{}, Gate{GateNeedsAnalysis, true}, ""},
-		{"warn", checks.Summary{}, Gate{}, `reports: unknown gate policy "warn" (want "fail" or "needs-analysis")`},
+		{"none", checks.Summary{Members: 3, Pass: 1, Fail: 2}, Gate{GateNone, true}, ""},
+		{"warn", checks.Summary{}, Gate{}, `reports: unknown gate policy "warn" (want "fail", "needs-analysis" or "none")`},
 	} {
 		got, err := NewGate(tc.policy, tc.s)
 		if tc.wantErr != "" {

@@ -64,7 +64,8 @@ buckling load factor lambda_c, delta_b, delta_s, delta_m and the amplified momen
 verdict per GlobalId: pass, fail or needs-analysis.
 
 Exit status: 0 when the gate holds, 1 when it does not (--gate fail: any member fails;
---gate needs-analysis: any member fails or needs analysis), 2 for a usage or input error.
+--gate needs-analysis: any member fails or needs analysis; --gate none: never), 2 for a
+usage or input error.
 
 Defaults for flags may sit in a project file beside the model (swaygate.conf); flags given on
 the command line win. Results support, and never replace, the judgement of a licensed
@@ -82,7 +83,7 @@ engineer and the local building code.`,
 	f.StringVar(&fl.scope, "scope", "", "stability (amplification only) or full (adds member capacity); default: the standard's")
 	f.StringVar(&fl.format, "format", "text", "output format: text, json, junit, csv or html")
 	f.StringVarP(&fl.output, "output", "o", "", "write the report to this file instead of standard output")
-	f.StringVar(&fl.gate, "gate", reports.GateFail, "gate policy for the exit status: fail or needs-analysis")
+	f.StringVar(&fl.gate, "gate", reports.GateFail, "gate policy for the exit status: fail, needs-analysis or none (report only, exit 0)")
 	f.StringVar(&fl.trace, "trace", "full", "calculation trace in json and html: full, summary (governing combination) or none")
 	f.StringVar(&fl.nzsProvisions, "nzs-provisions", "default", "NZS 3404 sway provisions: default or quoted (unconfirmed 0.95 factor and lambda_c >= 10 rule)")
 	f.StringVar(&fl.aiscMethod, "aisc-method", "lrfd", "AISC 360 design basis for alpha: lrfd (1.0) or asd (1.6)")

@@ -241,6 +241,9 @@ func TestCheckExitStatus(t *testing.T) {
 	if _, _, code := runCheckCmd(t, demoModel); code != exitGate {
 		t.Errorf("demo (C2 fails): exit %d, want 1", code)
 	}
+	if _, _, code := runCheckCmd(t, demoModel, "--gate", "none"); code != exitOK {
+		t.Errorf("demo with gate none: exit %d, want 0", code)
+	}
 
 	bad := filepath.Join(t.TempDir(), "bad.ifc")
 	text := "ISO-10303-21;\nHEADER;\nFILE_DESCRIPTION((''),'2;1');\nFILE_NAME('','',(''),(''),'','','');\nFILE_SCHEMA(('IFC4'));\nENDSEC;\nDATA;\n#1=IFCPERSON('x\n"

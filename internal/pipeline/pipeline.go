@@ -54,7 +54,7 @@ type Request struct {
 	// "auto" (default), "section-forces" or "end-forces".
 	Convention string
 
-	Gate    string // "fail" (default) or "needs-analysis"
+	Gate    string // "fail" (default), "needs-analysis" or "none"
 	Project string
 	Units   string // "si" (default) or "us": display units of text and HTML
 
@@ -235,8 +235,8 @@ func Check(ctx context.Context, req Request) (*Result, error) {
 	if gate == "" {
 		gate = reports.GateFail
 	}
-	if gate != reports.GateFail && gate != reports.GateNeedsAnalysis {
-		return nil, &OptionError{Msg: fmt.Sprintf("unknown gate %q (want %s or %s)", gate, reports.GateFail, reports.GateNeedsAnalysis)}
+	if gate != reports.GateFail && gate != reports.GateNeedsAnalysis && gate != reports.GateNone {
+		return nil, &OptionError{Msg: fmt.Sprintf("unknown gate %q (want %s, %s or %s)", gate, reports.GateFail, reports.GateNeedsAnalysis, reports.GateNone)}
 	}
 	switch req.Units {
 	case "", reports.UnitsSI, reports.UnitsUS:
