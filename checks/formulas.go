@@ -85,3 +85,34 @@ func SplitMoment(sp *SplitMoments, fnt, flt float64) float64 {
 	}
 	return m
 }
+
+// FirstOrderMoment finds M*m of one axis under one combination, the moment
+// a rule set amplifies: MaxMoment, or, when only split moments are given, the
+// sum of their peaks (SplitMoment). A transverse load with only end moments
+// known records interior-moment-unknown (message msgUnknown) and leaves
+// out.MStar unknown; otherwise out.MStar is set and the step traced as
+// quantity under clause, with notePeak when the peak along the member was
+// given and noteEnds otherwise. hasMoment reports whether there is a moment
+// to amplify (an unknown interior moment counts).
+func FirstOrderMoment(cx *AxisContext, out *AxisResult, tr *Tracer, quantity, clause, notePeak, noteEnds, msgUnknown string) (mm float64, hasMoment bool) {
+	mo := cx.Moments
+	mm = MaxMoment(mo)
+	if mm <= MomentTolerance && mo.Split != nil {
+		mm = SplitMoment(mo.Split, 1, 1)
+	}
+	hasMoment = mm > MomentTolerance || mo.InteriorUnknown
+	if mo.InteriorUnknown {
+		cx.Reason(CodeInteriorMomentUnknown, msgUnknown)
+		return mm, hasMoment
+	}
+	out.MStar = Num(mm)
+	if tr.On() {
+		formula, note := "max(|M_start|, |M_end|)", noteEnds
+		if mo.Peak != 0 {
+			formula, note = "max |M| along the member", notePeak
+		}
+		tr.Step(quantity, clause, formula, KNm(mm), "kNm").
+			Add("M_start", KNm(mo.Start), "kNm").Add("M_end", KNm(mo.End), "kNm").Noted(note)
+	}
+	return mm, hasMoment
+}

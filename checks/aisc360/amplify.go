@@ -117,25 +117,7 @@ func (r *Rules) Amplify(cx *checks.AxisContext, out *checks.AxisResult, tr *chec
 	on := tr.On()
 
 	// M_r1, the largest first-order moment.
-	mm := checks.MaxMoment(mo)
-	if mm <= checks.MomentTolerance && mo.Split != nil {
-		mm = checks.SplitMoment(mo.Split, 1, 1)
-	}
-	hasMoment := mm > checks.MomentTolerance || mo.InteriorUnknown
-	if mo.InteriorUnknown {
-		cx.Reason(checks.CodeInteriorMomentUnknown, msgInteriorUnk)
-	} else {
-		out.MStar = checks.Num(mm)
-		if on {
-			if mo.Peak != 0 {
-				tr.Step(q.mr1, clauseMr, "max |M| along the member", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm").Noted(notePeak)
-			} else {
-				tr.Step(q.mr1, clauseMr, "max(|M_start|, |M_end|)", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm")
-			}
-		}
-	}
+	mm, hasMoment := checks.FirstOrderMoment(cx, out, tr, q.mr1, clauseMr, notePeak, "", msgInteriorUnk)
 
 	// M1/M2 and C_m.
 	ratio, why := endRatio(s, mo, cx.SignAmbiguous)

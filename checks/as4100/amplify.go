@@ -129,24 +129,7 @@ func (r *Rules) Amplify(cx *checks.AxisContext, out *checks.AxisResult, tr *chec
 	on := tr.On()
 
 	// M*m.
-	mm := checks.MaxMoment(mo)
-	hasMoment := mm > checks.MomentTolerance || mo.InteriorUnknown
-	if mo.InteriorUnknown {
-		cx.Reason(checks.CodeInteriorMomentUnknown, msgInteriorUnknown)
-	} else {
-		out.MStar = checks.Num(mm)
-		if on {
-			if mo.Peak != 0 {
-				tr.Step(q.mStar, c.MStar, "max |M| along the member", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm").
-					Noted(r.notes[noteInteriorPeak])
-			} else {
-				tr.Step(q.mStar, c.MStar, "max(|M_start|, |M_end|)", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm").
-					Noted(r.notes[noteNone])
-			}
-		}
-	}
+	mm, hasMoment := checks.FirstOrderMoment(cx, out, tr, q.mStar, c.MStar, r.notes[noteInteriorPeak], r.notes[noteNone], msgInteriorUnknown)
 
 	// beta_m and c_m.
 	beta, why := betaM(s, mo, cx.SignAmbiguous)

@@ -81,25 +81,7 @@ func (r *Rules) Amplify(cx *checks.AxisContext, out *checks.AxisResult, tr *chec
 	on := tr.On()
 
 	// M_Ed, the largest first-order moment.
-	mm := checks.MaxMoment(mo)
-	if mm <= checks.MomentTolerance && mo.Split != nil {
-		mm = checks.SplitMoment(mo.Split, 1, 1)
-	}
-	hasMoment := mm > checks.MomentTolerance || mo.InteriorUnknown
-	if mo.InteriorUnknown {
-		cx.Reason(checks.CodeInteriorMomentUnknown, msgInteriorUnk)
-	} else {
-		out.MStar = checks.Num(mm)
-		if on {
-			if mo.Peak != 0 {
-				tr.Step(q.mEd, clauseMoment, "max |M| along the member", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm").Noted(notePeak)
-			} else {
-				tr.Step(q.mEd, clauseMoment, "max(|M_start|, |M_end|)", checks.KNm(mm), "kNm").
-					Add("M_start", checks.KNm(mo.Start), "kNm").Add("M_end", checks.KNm(mo.End), "kNm")
-			}
-		}
-	}
+	mm, hasMoment := checks.FirstOrderMoment(cx, out, tr, q.mEd, clauseMoment, notePeak, "", msgInteriorUnk)
 
 	// The braced (non-sway) buckling mode of the member.
 	memberOK := true

@@ -212,10 +212,7 @@ func (s Channel) Plates() ([]Plate, error) {
 	if _, err := s.build(); err != nil {
 		return nil, err
 	}
-	return []Plate{
-		{Part: "flange", Width: s.B - s.Tw, Thickness: s.Tf, Fillet: s.R, Support: OneEdge, Count: 2},
-		{Part: "web", Width: s.D - 2*s.Tf, Thickness: s.Tw, Fillet: s.R, Support: BothEdges, Count: 1},
-	}, nil
+	return flangesAndWeb(s.B, s.D, s.Tw, s.Tf, s.R), nil
 }
 
 func (s Channel) build() (def, error) {
@@ -381,10 +378,7 @@ func (s Zed) Plates() ([]Plate, error) {
 	if _, err := s.build(); err != nil {
 		return nil, err
 	}
-	return []Plate{
-		{Part: "flange", Width: s.B - s.Tw, Thickness: s.Tf, Fillet: s.R, Support: OneEdge, Count: 2},
-		{Part: "web", Width: s.D - 2*s.Tf, Thickness: s.Tw, Fillet: s.R, Support: BothEdges, Count: 1},
-	}, nil
+	return flangesAndWeb(s.B, s.D, s.Tw, s.Tf, s.R), nil
 }
 
 func (s Zed) build() (def, error) {
@@ -425,3 +419,13 @@ func (s Zed) build() (def, error) {
 }
 
 func cube(v float64) float64 { return v * v * v }
+
+// flangesAndWeb are the plates of a channel or zed: two flange outstands of
+// width B − Tw (one edge supported) and the web of clear depth D − 2·Tf (both
+// edges supported).
+func flangesAndWeb(b, d, tw, tf, r float64) []Plate {
+	return []Plate{
+		{Part: "flange", Width: b - tw, Thickness: tf, Fillet: r, Support: OneEdge, Count: 2},
+		{Part: "web", Width: d - 2*tf, Thickness: tw, Fillet: r, Support: BothEdges, Count: 1},
+	}
+}
