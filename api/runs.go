@@ -333,13 +333,6 @@ func projectParam(c *gin.Context) (string, error) {
 	return p, nil
 }
 
-func nextCursor(c string) *string {
-	if c == "" {
-		return nil
-	}
-	return &c
-}
-
 // listRuns is GET /v1/projects/{project}/runs: newest first, paginated. A
 // project without runs has an empty list.
 func (s *Server) listRuns(c *gin.Context) (reply, error) {
@@ -355,7 +348,7 @@ func (s *Server) listRuns(c *gin.Context) (reply, error) {
 	if err != nil {
 		return reply{}, err
 	}
-	out := runList{Project: project, Runs: make([]runView, 0, len(runs)), NextCursor: nextCursor(next)}
+	out := runList{Project: project, Runs: make([]runView, 0, len(runs)), NextCursor: optString(next)}
 	for i := range runs {
 		out.Runs = append(out.Runs, newRunView(&runs[i]))
 	}
@@ -390,6 +383,7 @@ type historyList struct {
 	NextCursor *string        `json:"next_cursor"`
 }
 
+// optString is s, or nil (JSON null) when empty.
 func optString(s string) *string {
 	if s == "" {
 		return nil
@@ -413,7 +407,7 @@ func (s *Server) memberHistory(c *gin.Context) (reply, error) {
 	if err != nil {
 		return reply{}, err
 	}
-	out := historyList{Project: project, GlobalID: gid, History: make([]historyEntry, 0, len(hs)), NextCursor: nextCursor(next)}
+	out := historyList{Project: project, GlobalID: gid, History: make([]historyEntry, 0, len(hs)), NextCursor: optString(next)}
 	for i := range hs {
 		r, e := &hs[i].Run, &hs[i].Element
 		reasons := e.Reasons
